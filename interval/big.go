@@ -72,7 +72,7 @@ func maxp(x, y B) uint {
 	return y.p()
 }
 
-func dn(p uint) *big.Float { return new(big.Float).SetPrec(p).SetMode(big.ToNegativeInf) }
+func dn(p uint) *big.Float  { return new(big.Float).SetPrec(p).SetMode(big.ToNegativeInf) }
 func upf(p uint) *big.Float { return new(big.Float).SetPrec(p).SetMode(big.ToPositiveInf) }
 
 func wholeB(p uint) B { return B{prec: p, whole: true} }
