@@ -1,0 +1,225 @@
+// Package certificates defines the JSON proof certificates written by the
+// certifier and read by the verifier: a versioned schema, strict reading
+// (unknown or missing fields, NaN, inconsistent entries are errors),
+// canonical hashing and atomic writing.
+//
+// Every number in a certificate is a decimal string, so nothing is lost to
+// binary floating point; the verifier parses each as an exact rational.
+package certificates
+
+import (
+	"bytes"
+	"crypto/sha256"
+	"encoding/hex"
+	"encoding/json"
+	"errors"
+	"fmt"
+	"math/big"
+	"os"
+	"path/filepath"
+	"strings"
+)
+
+// Schema is the version tag every certificate carries.
+const Schema = "wedgebound/certificate/v1"
+
+// Kinds of certificate.
+const (
+	// KindRelaxation proves a spectral bound for a wedge in a half-plane via a
+	// squeeze-invariant relaxation and a cover of the Mellin variable s.
+	KindRelaxation = "halfplane-relaxation"
+	// KindStrip brackets the spectral edges of the finite-strip operator.
+	KindStrip = "strip-bracket"
+)
+
+// Certificate is the top-level document. Exactly one of Relaxation and Strip
+// is set, matching Kind.
+type Certificate struct {
+	Schema     string      `json:"schema"`
+	Kind       string      `json:"kind"`
+	Tool       Tool        `json:"tool"`
+	Relaxation *Relaxation `json:"relaxation,omitempty"`
+	Strip      *Strip      `json:"strip,omitempty"`
+	// SHA256 is the hex SHA-256 of the canonical encoding of the certificate
+	// with this field empty.
+	SHA256 string `json:"sha256"`
+}
+
+// Tool names the program and version that produced the certificate.
+type Tool struct {
+	Name    string `json:"name"`
+	Version string `json:"version"`
+}
+
+// Version is this program's version string.
+const Version = "0.1.0"
+
+// ErrStaleHash reports a certificate whose content no longer matches its hash.
+var ErrStaleHash = errors.New("certificate hash is stale: the content was changed after it was written")
+
+// Canonical returns the canonical encoding (compact JSON, fields in schema
+// order, the hash field empty) that the hash is computed from.
+func Canonical(c *Certificate) ([]byte, error) {
+	cc := *c
+	cc.SHA256 = ""
+	var buf bytes.Buffer
+	enc := json.NewEncoder(&buf)
+	enc.SetEscapeHTML(false)
+	if err := enc.Encode(&cc); err != nil {
+		return nil, err
+	}
+	return bytes.TrimRight(buf.Bytes(), "\n"), nil
+}
+
+// Hash returns the hex SHA-256 of the canonical encoding.
+func Hash(c *Certificate) (string, error) {
+	b, err := Canonical(c)
+	if err != nil {
+		return "", err
+	}
+	sum := sha256.Sum256(b)
+	return hex.EncodeToString(sum[:]), nil
+}
+
+// Seal fills in the schema tag, tool and hash.
+func Seal(c *Certificate) error {
+	c.Schema = Schema
+	c.Tool = Tool{Name: "wedgebound", Version: Version}
+	h, err := Hash(c)
+	if err != nil {
+		return err
+	}
+	c.SHA256 = h
+	return nil
+}
+
+// Encode returns the indented JSON of a sealed certificate.
+func Encode(c *Certificate) ([]byte, error) {
+	var buf bytes.Buffer
+	enc := json.NewEncoder(&buf)
+	enc.SetEscapeHTML(false)
+	enc.SetIndent("", " ")
+	if err := enc.Encode(c); err != nil {
+		return nil, err
+	}
+	return buf.Bytes(), nil
+}
+
+// WriteFile seals c and writes it atomically: to a temporary file in the
+// same directory, synced, then renamed over path.
+func WriteFile(path string, c *Certificate) error {
+	if err := Seal(c); err != nil {
+		return err
+	}
+	b, err := Encode(c)
+	if err != nil {
+		return err
+	}
+	return WriteAtomic(path, b)
+}
+
+// WriteAtomic writes data to path via a temporary file and rename, so a
+// reader sees either the old file or the complete new one.
+func WriteAtomic(path string, data []byte) error {
+	dir := filepath.Dir(path)
+	f, err := os.CreateTemp(dir, "."+filepath.Base(path)+".tmp*")
+	if err != nil {
+		return err
+	}
+	tmp := f.Name()
+	_, err = f.Write(data)
+	if err == nil {
+		err = f.Sync()
+	}
+	if cerr := f.Close(); err == nil {
+		err = cerr
+	}
+	if err == nil {
+		err = os.Rename(tmp, path)
+	}
+	if err != nil {
+		os.Remove(tmp)
+	}
+	return err
+}
+
+// ReadFile reads and strictly decodes a certificate. It checks the schema
+// tag, the structure, every decimal field and the hash; a stale hash is
+// reported as an error wrapping ErrStaleHash.
+func ReadFile(path string) (*Certificate, error) {
+	b, err := os.ReadFile(path)
+	if err != nil {
+		return nil, err
+	}
+	return Decode(b)
+}
+
+// Decode strictly decodes and validates a certificate (see ReadFile).
+func Decode(b []byte) (*Certificate, error) {
+	dec := json.NewDecoder(bytes.NewReader(b))
+	dec.DisallowUnknownFields()
+	var c Certificate
+	if err := dec.Decode(&c); err != nil {
+		return nil, fmt.Errorf("malformed certificate: %v", err)
+	}
+	if dec.More() {
+		return nil, errors.New("malformed certificate: trailing data after the JSON object")
+	}
+	if c.Schema != Schema {
+		return nil, fmt.Errorf("unknown schema %q (this program reads %q)", c.Schema, Schema)
+	}
+	if err := c.validate(); err != nil {
+		return nil, fmt.Errorf("inconsistent certificate: %v", err)
+	}
+	h, err := Hash(&c)
+	if err != nil {
+		return nil, err
+	}
+	if h != c.SHA256 {
+		return &c, fmt.Errorf("%w (recorded %.12s..., content hashes to %.12s...)", ErrStaleHash, c.SHA256, h)
+	}
+	return &c, nil
+}
+
+func (c *Certificate) validate() error {
+	if c.Tool.Name == "" || c.Tool.Version == "" {
+		return errors.New("missing tool name or version")
+	}
+	switch c.Kind {
+	case KindRelaxation:
+		if c.Relaxation == nil || c.Strip != nil {
+			return errors.New("a relaxation certificate must hold exactly the relaxation section")
+		}
+		return c.Relaxation.validate()
+	case KindStrip:
+		if c.Strip == nil || c.Relaxation != nil {
+			return errors.New("a strip certificate must hold exactly the strip section")
+		}
+		return c.Strip.validate()
+	}
+	return fmt.Errorf("unknown certificate kind %q", c.Kind)
+}
+
+// Dec parses a decimal string field strictly: a finite decimal number,
+// optionally with an exponent in [-1000, 1000]; NaN, infinities, fractions
+// and empty strings are rejected. name is used in the error.
+func Dec(s, name string) (*big.Rat, error) {
+	t := strings.TrimSpace(s)
+	if t == "" {
+		return nil, fmt.Errorf("%s: missing number", name)
+	}
+	if t != s || len(t) > 20000 || strings.ContainsAny(t, "/_xXpP") {
+		return nil, fmt.Errorf("%s: %.40q is not a plain decimal number", name, s)
+	}
+	if i := strings.IndexAny(t, "eE"); i >= 0 {
+		var e int
+		if _, err := fmt.Sscan(t[i+1:], &e); err != nil || e > 1000 || e < -1000 {
+			return nil, fmt.Errorf("%s: %q has an exponent out of range", name, s)
+		}
+	}
+	r, ok := new(big.Rat).SetString(t)
+	if !ok {
+		return nil, fmt.Errorf("%s: %.40q is not a finite decimal number", name, s)
+	}
+	return r, nil
+}
