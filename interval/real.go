@@ -80,3 +80,15 @@ type Real[T any] interface {
 	Ln2() T
 	Whole() T
 }
+
+// Lower returns the point interval at x's lower endpoint (Whole for Whole).
+func Lower[T Real[T]](x T) T {
+	lo, _ := x.Endpoints()
+	return x.Between(lo, lo)
+}
+
+// Upper returns the point interval at x's upper endpoint (Whole for Whole).
+func Upper[T Real[T]](x T) T {
+	_, hi := x.Endpoints()
+	return x.Between(hi, hi)
+}
