@@ -202,17 +202,58 @@ func (x B) Sqrt() B {
 	}
 	lo := new(big.Float)
 	if x.l().Sign() > 0 {
-		lo = dn(p).Sqrt(x.l())
+		lo = sqrtDirected(x.l(), p, false)
 	}
-	return mkB(lo, upf(p).Sqrt(x.h()), p)
+	return mkB(lo, sqrtDirected(x.h(), p, true), p)
 }
 
-// Scale returns x * 2^k exactly.
+// sqrtDirected returns sqrt(v) for v >= 0 rounded to p bits toward +inf
+// (up) or -inf. big.Float.Sqrt does not promise correct directed rounding
+// (it rounds an approximation), so the candidate is checked by squaring it
+// exactly (2p bits hold the product) and moved by one ulp until it is on the
+// required side.
+func sqrtDirected(v *big.Float, p uint, up bool) *big.Float {
+	if v.Sign() == 0 {
+		return new(big.Float)
+	}
+	var r *big.Float
+	if up {
+		r = upf(p).Sqrt(v)
+	} else {
+		r = dn(p).Sqrt(v)
+	}
+	for i := 0; i < 64; i++ {
+		sq := new(big.Float).SetPrec(2*p+2).Mul(r, r) // exact
+		c := sq.Cmp(v)
+		if up && c >= 0 || !up && c <= 0 {
+			return r
+		}
+		ulp := new(big.Float).SetMantExp(big.NewFloat(1), r.MantExp(nil)-int(p))
+		if up {
+			r = upf(p).Add(r, ulp)
+		} else {
+			r = dn(p).Sub(r, ulp)
+		}
+	}
+	panic("interval: square root correction did not converge")
+}
+
+// Scale returns x * 2^k, exactly unless the exponent range of math/big is
+// left: overflow gives Whole and an endpoint that underflows to zero is
+// replaced by the smallest magnitude of its sign, so the result still
+// encloses x * 2^k.
 func (x B) Scale(k int) B {
 	if x.whole {
 		return x
 	}
-	return B{lo: new(big.Float).SetMantExp(x.l(), k), hi: new(big.Float).SetMantExp(x.h(), k), prec: x.p()}
+	lo, hi := new(big.Float).SetMantExp(x.l(), k), new(big.Float).SetMantExp(x.h(), k)
+	if lo.Sign() == 0 && x.l().Sign() < 0 {
+		lo.SetMantExp(big.NewFloat(-0.5), big.MinExp)
+	}
+	if hi.Sign() == 0 && x.h().Sign() > 0 {
+		hi.SetMantExp(big.NewFloat(0.5), big.MinExp)
+	}
+	return mkB(lo, hi, x.p())
 }
 
 // Hull returns the smallest interval containing x and y.

@@ -1,0 +1,125 @@
+package interval
+
+import (
+	"math"
+	"math/big"
+)
+
+// This file holds the machinery shared by the elementary functions: working
+// precision, point endpoints, tolerances and clipping.
+//
+// Every elementary function follows the same plan. The argument interval is
+// split into its two endpoints, each a point interval; the function is
+// evaluated at each point with interval arithmetic (so every rounding error is
+// enclosed automatically) and with an explicit bound on the truncated series
+// added by Pad; monotone functions take the hull of the two endpoint
+// enclosures, the others also add the extreme values of any critical point
+// inside the argument. On B the work is done at a precision a few guard bits
+// above the receiver's and the result is rounded outward back to it.
+
+// precSetter is implemented by interval types whose precision can be raised
+// (B); F has a fixed precision.
+type precSetter[T any] interface{ WithPrec(uint) T }
+
+// withPrec returns x rounded outward to p bits when T supports it, else x.
+func withPrec[T Real[T]](x T, p uint) T {
+	if s, ok := any(x).(precSetter[T]); ok {
+		return s.WithPrec(p)
+	}
+	return x
+}
+
+// isFixed reports whether T has a fixed precision (F).
+func isFixed[T Real[T]](x T) bool {
+	_, ok := any(x).(precSetter[T])
+	return !ok
+}
+
+// maxTerms caps every series loop; reaching it returns Whole (it cannot
+// happen for the reduced arguments used here, it only guards the loops).
+const maxTerms = 1 << 20
+
+// pointsOf returns the endpoints of a finite x as point intervals at x's
+// precision, and whether they coincide.
+func pointsOf[T Real[T]](x T) (lo, hi T, thin bool) {
+	if f, ok := any(x).(F); ok {
+		l, h := any(PointF(f.lo)).(T), any(PointF(f.hi)).(T)
+		return l, h, f.lo == f.hi
+	}
+	l, h := x.Endpoints()
+	return x.Between(l, l), x.Between(h, h), l.Cmp(h) == 0
+}
+
+// bigLo returns the exact lower endpoint of a finite x.
+func bigLo[T Real[T]](x T) *big.Float {
+	if f, ok := any(x).(F); ok {
+		return new(big.Float).SetFloat64(f.lo)
+	}
+	l, _ := x.Endpoints()
+	return l
+}
+
+// isZero reports whether x is the point 0.
+func isZero[T Real[T]](x T) bool {
+	z := x.Int(0)
+	return x.Contains(z) && z.Contains(x)
+}
+
+// tolerance returns the threshold below which a series term is dropped: the
+// magnitude of first scaled by 2^-(bits+3), but at least 2^-(2 bits + 64) so
+// that a zero argument stops at once. Only the loop length depends on it; the
+// bound added for the dropped tail is always computed from the actual term.
+func tolerance[T Real[T]](first T, bits uint) T {
+	floor := first.Int(1).Scale(-int(2*bits + 64))
+	return first.Abs().Scale(-int(bits + 3)).Max(floor)
+}
+
+// clip intersects x with [lo, hi]; valid only when the exact values are known
+// to lie in [lo, hi] (for example sin in [-1, 1]).
+func clip[T Real[T]](x T, lo, hi int64) T {
+	return x.Max(x.Int(lo)).Min(x.Int(hi))
+}
+
+// isqrt returns floor(sqrt(n)).
+func isqrt(n uint) uint { return uint(math.Sqrt(float64(n))) }
+
+// work returns the working precision p+g+extra for a receiver of precision p,
+// clamped to MaxPrec (the clamp only widens the result).
+func work(p uint, g int, extra int) uint {
+	w := int(p) + g + extra
+	if w > MaxPrec {
+		return MaxPrec
+	}
+	return uint(w)
+}
+
+// bitLen64 returns the number of bits of |k|.
+func bitLen64(k int64) int {
+	if k < 0 {
+		k = -k
+	}
+	n := 0
+	for k > 0 {
+		n++
+		k >>= 1
+	}
+	return n
+}
+
+// reduceB encloses v - k*c in B at prec bits, where c is a constant getter
+// (for example pi/2). It is used when the reduction needs more bits than T
+// offers (F) or carries a large multiple k.
+func reduceB(v *big.Float, k *big.Int, c func(B) B, prec uint) B {
+	z := B{prec: clampPrec(prec)}
+	kf := new(big.Float).SetInt(k)
+	return z.Between(v, v).Sub(z.Between(kf, kf).Mul(c(z)))
+}
+
+// fromB converts the B enclosure b to T at w's precision (outward).
+func fromB[T Real[T]](w T, b B) T {
+	l, h := b.Endpoints()
+	if l == nil {
+		return w.Whole()
+	}
+	return w.Between(l, h)
+}
