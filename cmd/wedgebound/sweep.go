@@ -1,0 +1,309 @@
+package main
+
+import (
+	"bytes"
+	"encoding/csv"
+	"errors"
+	"fmt"
+	"image/color"
+	"io"
+	"math"
+	"os"
+	"strconv"
+	"strings"
+
+	"github.com/spf13/pflag"
+	"gonum.org/v1/plot"
+	"gonum.org/v1/plot/plotter"
+	"gonum.org/v1/plot/vg"
+	"gonum.org/v1/plot/vg/draw"
+
+	"wedgebound/certificates"
+	"wedgebound/certify/strip"
+)
+
+func init() {
+	register("sweep", "certified strip brackets over a log-spaced alpha range, as CSV and an SVG plot", runSweep)
+}
+
+// publishedBackflowEstimate is the (not rigorous) numerical estimate of the
+// backflow constant by A. J. Bracken and G. F. Melloy, J. Phys. A 27 (1994)
+// 2197; the plot draws it only as a dashed reference line.
+const publishedBackflowEstimate = 0.0384517
+
+// sweepPoint is one certified row of a sweep.
+type sweepPoint struct {
+	alpha string
+	x     float64
+	res   *strip.Result
+}
+
+func runSweep(args []string, stdout, stderr io.Writer) int {
+	fs := pflag.NewFlagSet("sweep", pflag.ContinueOnError)
+	fs.SetOutput(stderr)
+	from := fs.Float64("from", 1, "smallest alpha")
+	to := fs.Float64("to", 1000, "largest alpha")
+	points := fs.Int("points", 13, "number of log-spaced alpha values (each rounded to 6 significant digits)")
+	csvFile := fs.String("csv", "", "write the brackets as CSV to this file")
+	svgFile := fs.String("svg", "", "write a plot of the advantage bracket against alpha to this SVG file")
+	quiet := fs.Bool("quiet", false, "no progress bar")
+	var in stripInput
+	in.add(fs)
+	fs.Usage = func() {
+		fmt.Fprintln(stderr, "usage: wedgebound sweep --from A --to B --points N [--csv FILE] [--svg FILE] [--width W] [--quiet]")
+		fs.PrintDefaults()
+	}
+	if err := fs.Parse(args); err != nil {
+		if err == pflag.ErrHelp {
+			return 0
+		}
+		return 2
+	}
+	fail := func(format string, a ...any) int {
+		fmt.Fprintf(stderr, "wedgebound sweep: "+format+"\n", a...)
+		return 2
+	}
+	switch {
+	case fs.NArg() > 0:
+		return fail("unexpected argument %q", fs.Arg(0))
+	case !(*from > 0) || math.IsInf(*from, 0):
+		return fail("--from %g must be a positive number", *from)
+	case !(*to >= *from) || math.IsInf(*to, 0):
+		return fail("--to %g must be a number at least --from", *to)
+	case *points < 1 || *points > 10000:
+		return fail("--points %d is outside 1..10000", *points)
+	case *points == 1 && *to != *from:
+		return fail("--points 1 needs --to equal to --from")
+	}
+	if err := in.check(); err != nil {
+		return fail("%v", err)
+	}
+	alphas, err := sweepAlphas(*from, *to, *points)
+	if err != nil {
+		return fail("%v", err)
+	}
+	bar := newProgress(stderr, len(alphas), *quiet)
+	var rows []sweepPoint
+	for i, s := range alphas {
+		bar.show(i, s)
+		a, err := strip.ParseAlpha(s)
+		if err != nil {
+			return fail("%v", err)
+		}
+		res, err := strip.Compute(a, in.options())
+		if err != nil {
+			bar.done()
+			if errors.Is(err, strip.ErrRange) {
+				return fail("alpha %s: %v", s, err)
+			}
+			fmt.Fprintf(stderr, "wedgebound sweep: alpha %s: %v\n", s, err)
+			return 1
+		}
+		x, _ := strconv.ParseFloat(s, 64)
+		rows = append(rows, sweepPoint{alpha: s, x: x, res: res})
+	}
+	bar.show(len(alphas), "")
+	bar.done()
+
+	table := sweepCSV(rows)
+	if *csvFile != "" {
+		if err := certificates.WriteAtomic(*csvFile, table); err != nil {
+			fmt.Fprintf(stderr, "wedgebound sweep: %v\n", err)
+			return 1
+		}
+	}
+	if *svgFile != "" {
+		img, err := sweepPlot(rows, "svg")
+		if err == nil {
+			err = certificates.WriteAtomic(*svgFile, img)
+		}
+		if err != nil {
+			fmt.Fprintf(stderr, "wedgebound sweep: %v\n", err)
+			return 1
+		}
+	}
+	if *csvFile == "" && *svgFile == "" {
+		stdout.Write(table)
+	}
+	best := bestLower(rows)
+	fmt.Fprintf(stdout, "best certified lower bound for the backflow constant: c_bm >= %s (advantage at alpha = %s)\n",
+		best.res.Advantage.Lower, best.alpha)
+	return 0
+}
+
+// sweepAlphas returns points log-spaced values from lo to hi, each rounded
+// to 6 significant digits so that every row is reproducible with
+// "wedgebound strip --alpha".
+func sweepAlphas(lo, hi float64, points int) ([]string, error) {
+	out := make([]string, 0, points)
+	seen := map[string]bool{}
+	for i := 0; i < points; i++ {
+		v := lo
+		if points > 1 {
+			v = lo * math.Pow(hi/lo, float64(i)/float64(points-1))
+		}
+		s := strconv.FormatFloat(v, 'g', 6, 64)
+		if seen[s] {
+			continue
+		}
+		seen[s] = true
+		out = append(out, s)
+	}
+	return out, nil
+}
+
+func bestLower(rows []sweepPoint) sweepPoint {
+	best := rows[0]
+	for _, r := range rows[1:] {
+		if r.res.AdvantageF.Lo() > best.res.AdvantageF.Lo() {
+			best = r
+		}
+	}
+	return best
+}
+
+// sweepCSV writes one row per alpha with the directed decimal brackets.
+func sweepCSV(rows []sweepPoint) []byte {
+	var b bytes.Buffer
+	w := csv.NewWriter(&b)
+	w.Write([]string{"alpha", "basis_size", "quadrature_nodes", "advantage_lower", "advantage_upper", "deficit_lower", "deficit_upper"})
+	for _, r := range rows {
+		w.Write([]string{r.alpha, strconv.Itoa(r.res.BasisSize), strconv.Itoa(r.res.QuadratureNodes),
+			r.res.Advantage.Lower, r.res.Advantage.Upper, r.res.Deficit.Lower, r.res.Deficit.Upper})
+	}
+	w.Flush()
+	return b.Bytes()
+}
+
+// sweepPlot plots the advantage bracket against alpha on a log axis, with
+// the best certified lower bound for the backflow constant as a band that
+// reaches up to the published estimate (dashed; not a certified value).
+// The image format is "svg" for the command (others are for inspection).
+func sweepPlot(rows []sweepPoint, format string) ([]byte, error) {
+	p := plot.New()
+	p.Title.Text = "Certified finite-strip advantage A(alpha)"
+	p.X.Label.Text = "alpha = m L^2 / (hbar t)"
+	p.Y.Label.Text = "A(alpha) = -lambda_min"
+	lo := make(plotter.XYs, len(rows))
+	hi := make(plotter.XYs, len(rows))
+	for i, r := range rows {
+		lo[i] = plotter.XY{X: r.x, Y: r.res.AdvantageF.Lo()}
+		hi[i] = plotter.XY{X: r.x, Y: r.res.AdvantageF.Hi()}
+	}
+	xmin, xmax := rows[0].x, rows[len(rows)-1].x
+	if xmax <= xmin {
+		xmin, xmax = xmin/2, xmax*2
+	}
+	best := bestLower(rows)
+	bl := best.res.AdvantageF.Lo()
+	band, err := plotter.NewPolygon(plotter.XYs{{X: xmin, Y: bl}, {X: xmax, Y: bl}, {X: xmax, Y: publishedBackflowEstimate}, {X: xmin, Y: publishedBackflowEstimate}})
+	if err != nil {
+		return nil, err
+	}
+	band.Color = color.NRGBA{R: 120, G: 170, B: 230, A: 110}
+	band.LineStyle.Width = 0
+	lower, err := plotter.NewLine(hrule(xmin, xmax, bl))
+	if err != nil {
+		return nil, err
+	}
+	lower.Color = color.RGBA{B: 180, A: 255}
+	ref, err := plotter.NewLine(hrule(xmin, xmax, publishedBackflowEstimate))
+	if err != nil {
+		return nil, err
+	}
+	ref.Dashes = []vg.Length{vg.Points(4), vg.Points(3)}
+	ref.Color = color.Gray{Y: 90}
+	upLine, upPts, err := plotter.NewLinePoints(hi)
+	if err != nil {
+		return nil, err
+	}
+	loLine, loPts, err := plotter.NewLinePoints(lo)
+	if err != nil {
+		return nil, err
+	}
+	upLine.Color, loLine.Color = color.RGBA{R: 200, A: 255}, color.RGBA{R: 200, A: 255}
+	upPts.Shape, loPts.Shape = draw.PyramidGlyph{}, draw.CircleGlyph{}
+	upPts.Color, loPts.Color = color.RGBA{R: 200, A: 255}, color.RGBA{R: 200, A: 255}
+	p.Add(band, lower, ref, upLine, loLine, upPts, loPts, plotter.NewGrid())
+	p.Legend.Add("certified bracket of A(alpha): upper ▲, lower ●", upLine, upPts)
+	p.Legend.Add(fmt.Sprintf("certified c_bm >= %s (alpha = %s); band up to the estimate", trimDigits(best.res.Advantage.Lower, 8), best.alpha), band, lower)
+	p.Legend.Add("estimate 0.0384517 (Bracken & Melloy 1994, not certified)", ref)
+	p.Legend.Top = false
+	p.Legend.Left = false
+	p.Legend.YOffs = vg.Points(40)
+	p.X.Scale = plot.LogScale{}
+	p.X.Tick.Marker = plot.LogTicks{Prec: -1}
+	p.X.Min, p.X.Max = xmin, xmax
+	p.Y.Min = 0
+	p.Y.Max = 0.042
+	wt, err := p.WriterTo(8*vg.Inch, 5*vg.Inch, format)
+	if err != nil {
+		return nil, err
+	}
+	var b bytes.Buffer
+	if _, err := wt.WriteTo(&b); err != nil {
+		return nil, err
+	}
+	return b.Bytes(), nil
+}
+
+func hrule(x0, x1, y float64) plotter.XYs {
+	return plotter.XYs{{X: x0, Y: y}, {X: x1, Y: y}}
+}
+
+// trimDigits shortens a decimal lower bound to n significant digits by
+// truncation (a truncated positive lower bound is still a lower bound).
+func trimDigits(s string, n int) string {
+	if strings.ContainsAny(s, "e-") {
+		return s
+	}
+	out := []byte{}
+	sig := 0
+	for i := 0; i < len(s); i++ {
+		c := s[i]
+		if c >= '1' && c <= '9' || c == '0' && sig > 0 {
+			if sig == n {
+				break
+			}
+			sig++
+		}
+		out = append(out, c)
+	}
+	return string(out)
+}
+
+// progress draws a one-line progress bar on stderr when it is a terminal.
+type progress struct {
+	w     io.Writer
+	total int
+	on    bool
+}
+
+func newProgress(w io.Writer, total int, quiet bool) *progress {
+	on := false
+	if f, ok := w.(*os.File); ok && !quiet {
+		if st, err := f.Stat(); err == nil && st.Mode()&os.ModeCharDevice != 0 {
+			on = true
+		}
+	}
+	return &progress{w: w, total: total, on: on}
+}
+
+func (p *progress) show(done int, next string) {
+	if !p.on {
+		return
+	}
+	const width = 30
+	k := done * width / max(p.total, 1)
+	msg := ""
+	if next != "" {
+		msg = " alpha=" + next
+	}
+	fmt.Fprintf(p.w, "\r[%s%s] %d/%d%s\x1b[K", strings.Repeat("#", k), strings.Repeat(" ", width-k), done, p.total, msg)
+}
+
+func (p *progress) done() {
+	if p.on {
+		fmt.Fprint(p.w, "\n")
+	}
+}
