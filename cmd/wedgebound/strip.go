@@ -69,6 +69,7 @@ func runStrip(args []string, stdout, stderr io.Writer) int {
 		if err == pflag.ErrHelp {
 			return 0
 		}
+		fmt.Fprintf(stderr, "wedgebound strip: %v (see --help)\n", err)
 		return 2
 	}
 	fail := func(format string, a ...any) int {
@@ -154,5 +155,5 @@ func printStrip(w io.Writer, r *strip.Result) {
 	fmt.Fprintf(w, "advantage A(alpha) = -lambda_min in [%s, %s]\n", r.Advantage.Lower, r.Advantage.Upper)
 	fmt.Fprintf(w, "deficit lambda_max in [%s, %s]\n", r.Deficit.Lower, r.Deficit.Upper)
 	fmt.Fprintf(w, "(basis size %d, %d Gauss nodes per variable)\n", r.BasisSize, r.QuadratureNodes)
-	fmt.Fprintf(w, "Meaning: a particle confined to a region of length L can reach the target within time t with a probability higher than every classical particle with the same momentum distribution by at most A(alpha), and some state achieves at least the lower end; it can fall short of them by at most the deficit, and some state by at least its lower end.\n")
+	fmt.Fprintf(w, "Meaning: a quantum particle confined to a region of length L reaches the target within time t with a probability that exceeds that of every classical particle with the same momentum distribution by at most the advantage's upper end (the witness state achieves at least its lower end), and falls short of it by at most the deficit's upper end.\n")
 }

@@ -57,6 +57,7 @@ func runSweep(args []string, stdout, stderr io.Writer) int {
 		if err == pflag.ErrHelp {
 			return 0
 		}
+		fmt.Fprintf(stderr, "wedgebound sweep: %v (see --help)\n", err)
 		return 2
 	}
 	fail := func(format string, a ...any) int {
