@@ -109,10 +109,12 @@ func (x F) Sqrt() F {
 	return F{lo, up(math.Sqrt(x.hi))}
 }
 
-// Scale returns x * 2^k, widened only when the result leaves the normal range.
+// Scale returns x * 2^k, widened by one ulp only when the result is not
+// exact (it left the normal range: overflow, or underflow to a subnormal or
+// to zero).
 func (x F) Scale(k int) F {
 	lo, hi := math.Ldexp(x.lo, k), math.Ldexp(x.hi, k)
-	if lo != 0 && math.Abs(lo) < 0x1p-1000 || hi != 0 && math.Abs(hi) < 0x1p-1000 || math.IsInf(lo, 0) || math.IsInf(hi, 0) {
+	if math.Ldexp(lo, -k) != x.lo || math.Ldexp(hi, -k) != x.hi {
 		return mkF(lo, hi)
 	}
 	return F{lo, hi}
