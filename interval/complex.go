@@ -1,0 +1,234 @@
+package interval
+
+import "math/big"
+
+// C is a complex interval: the rectangle {a + ib : a in Re, b in Im}. Every
+// operation returns a rectangle containing f(z) for every z in the operand
+// rectangles. A part that cannot be bounded is Whole; IsFinite reports it.
+type C[T Real[T]] struct{ Re, Im T }
+
+// NewC returns the rectangle re × im.
+func NewC[T Real[T]](re, im T) C[T] { return C[T]{Re: re, Im: im} }
+
+// RealC returns the rectangle x × {0}; the imaginary part is the exact zero
+// at x's precision.
+func RealC[T Real[T]](x T) C[T] { return C[T]{Re: x, Im: x.Int(0)} }
+
+// IsFinite reports whether both parts are bounded.
+func (z C[T]) IsFinite() bool { return z.Re.IsFinite() && z.Im.IsFinite() }
+
+// Contains reports whether the rectangle w lies inside z.
+func (z C[T]) Contains(w C[T]) bool { return z.Re.Contains(w.Re) && z.Im.Contains(w.Im) }
+
+// Hull returns the smallest rectangle containing z and w.
+func (z C[T]) Hull(w C[T]) C[T] { return C[T]{z.Re.Hull(w.Re), z.Im.Hull(w.Im)} }
+
+// Add encloses z + w exactly as the sum of the parts' enclosures.
+func (z C[T]) Add(w C[T]) C[T] { return C[T]{z.Re.Add(w.Re), z.Im.Add(w.Im)} }
+
+// Sub encloses z - w.
+func (z C[T]) Sub(w C[T]) C[T] { return C[T]{z.Re.Sub(w.Re), z.Im.Sub(w.Im)} }
+
+// Neg returns -z exactly.
+func (z C[T]) Neg() C[T] { return C[T]{z.Re.Neg(), z.Im.Neg()} }
+
+// Conj returns the complex conjugate exactly.
+func (z C[T]) Conj() C[T] { return C[T]{z.Re, z.Im.Neg()} }
+
+// Scale returns z * 2^k exactly (up to the real type's range).
+func (z C[T]) Scale(k int) C[T] { return C[T]{z.Re.Scale(k), z.Im.Scale(k)} }
+
+// MulReal encloses z * x for real x; each part is a product of independent
+// intervals, so the result is the tightest rectangle up to rounding.
+func (z C[T]) MulReal(x T) C[T] { return C[T]{z.Re.Mul(x), z.Im.Mul(x)} }
+
+// AddReal encloses z + x for real x.
+func (z C[T]) AddReal(x T) C[T] { return C[T]{z.Re.Add(x), z.Im} }
+
+// Mul encloses z * w by (ac - bd) + i(ad + bc) in interval arithmetic; an
+// unbounded part of an operand makes both result parts Whole.
+func (z C[T]) Mul(w C[T]) C[T] {
+	a, b, c, d := z.Re, z.Im, w.Re, w.Im
+	return C[T]{a.Mul(c).Sub(b.Mul(d)), a.Mul(d).Add(b.Mul(c))}
+}
+
+// Sqr encloses z^2 as (a^2 - b^2) + 2ab i, which is tighter than z.Mul(z).
+func (z C[T]) Sqr() C[T] {
+	a, b := z.Re, z.Im
+	return C[T]{a.Sqr().Sub(b.Sqr()), a.Mul(b).Scale(1)}
+}
+
+// Abs2 encloses |z|^2 = a^2 + b^2; the two squares are exact ranges, so the
+// result is the tightest interval up to rounding.
+func (z C[T]) Abs2() T { return z.Re.Sqr().Add(z.Im.Sqr()) }
+
+// Abs encloses |z| over the rectangle as sqrt(a^2 + b^2), tight up to
+// rounding (the minimum is at the point nearest 0, the maximum at the
+// farthest corner, and the interval formula reproduces both).
+func (z C[T]) Abs() T { return z.Abs2().Sqrt() }
+
+// Inv encloses 1/z as conj(z)/|z|^2; both parts are Whole when the
+// rectangle contains 0 (or comes so close that |z|^2 rounds to 0).
+func (z C[T]) Inv() C[T] {
+	d := z.Abs2()
+	return C[T]{z.Re.Quo(d), z.Im.Neg().Quo(d)}
+}
+
+// Quo encloses z / w as z * conj(w) / |w|^2; both parts are Whole when the
+// divisor rectangle contains 0.
+func (z C[T]) Quo(w C[T]) C[T] {
+	d := w.Abs2()
+	n := z.Mul(w.Conj())
+	return C[T]{n.Re.Quo(d), n.Im.Quo(d)}
+}
+
+// QuoReal encloses z / x for real x; Whole parts when x contains 0.
+func (z C[T]) QuoReal(x T) C[T] { return C[T]{z.Re.Quo(x), z.Im.Quo(x)} }
+
+// crossesCut reports whether the rectangle meets the closed half-line
+// (-inf, 0], where the principal argument and logarithm are discontinuous
+// or undefined. It errs on the side of true.
+func (z C[T]) crossesCut() bool {
+	return !z.IsFinite() || z.Re.Lo() <= 0 && z.Im.Sign() == 0
+}
+
+// Arg encloses the principal argument in (-pi, pi] over the rectangle via
+// Atan2; it returns Whole (not an error) when the rectangle contains 0 or
+// meets the negative real axis, where the argument jumps by 2pi.
+func (z C[T]) Arg() T {
+	if z.crossesCut() {
+		return z.Re.Whole()
+	}
+	return Atan2(z.Im, z.Re)
+}
+
+// Exp encloses e^z = e^a (cos b + i sin b) over the rectangle; a part is
+// Whole only when e^a overflows the real type.
+func (z C[T]) Exp() C[T] {
+	ea := Exp(z.Re)
+	s, c := SinCos(z.Im)
+	return C[T]{ea.Mul(c), ea.Mul(s)}
+}
+
+// Log encloses the principal logarithm ln|z| + i Arg z. When the rectangle
+// contains 0 both parts are Whole; when it only meets the negative real
+// axis (the branch cut) the real part is still enclosed and the imaginary
+// part is Whole.
+func (z C[T]) Log() C[T] {
+	a2 := z.Abs2()
+	if a2.Sign() <= 0 {
+		return C[T]{z.Re.Whole(), z.Re.Whole()}
+	}
+	var re T
+	if a2.Lo() > 0.5 && a2.Hi() < 2 {
+		// ln|z| = log1p((x-1)(x+1) + y^2)/2 keeps its relative accuracy
+		// near |z| = 1, where log(x^2 + y^2) would cancel.
+		one := z.Re.Int(1)
+		re = Log1p(z.Re.Sub(one).Mul(z.Re.Add(one)).Add(z.Im.Sqr())).Scale(-1)
+	} else {
+		re = Log(a2).Scale(-1)
+	}
+	return C[T]{re, z.Arg()}
+}
+
+// Sqrt encloses the principal square root (Re >= 0, and Im >= 0 on the
+// negative real axis) over the rectangle. It is defined everywhere: across
+// the branch cut the enclosure is the hull of the values on both sides, so
+// it never returns Whole for a bounded rectangle.
+//
+// Bounds come from monotonicity: Re sqrt(x+iy) is nondecreasing in x and in
+// |y|; Im sqrt(x+iy) is nondecreasing in y (including the jump at the cut),
+// nonincreasing in x for y >= 0 and nondecreasing in x for y < 0. Each
+// extreme is therefore attained at a corner (or at y = 0), where it is
+// evaluated in interval arithmetic with cancellation-free formulas.
+func (z C[T]) Sqrt() C[T] {
+	if !z.IsFinite() {
+		return C[T]{z.Re.Whole(), z.Re.Whole()}
+	}
+	xl, xh := Lower(z.Re), Upper(z.Re)
+	yl, yh := Lower(z.Im), Upper(z.Im)
+	// Real part: min at (x.lo, y nearest 0), max at (x.hi, y farthest from 0).
+	ay := z.Im.Abs()
+	reLo, _ := cxSqrtPoint(xl, Lower(ay))
+	reHi, _ := cxSqrtPoint(xh, Upper(ay))
+	// Imaginary part: max at y.hi (x.lo if y.hi >= 0 else x.hi), min at
+	// y.lo (x.hi if y.lo >= 0 else x.lo).
+	var imHi, imLo T
+	if yh.Sign() >= 0 {
+		_, imHi = cxSqrtPoint(xl, yh)
+	} else {
+		_, imHi = cxSqrtPoint(xh, yh)
+	}
+	if yl.Sign() >= 0 {
+		_, imLo = cxSqrtPoint(xh, yl)
+	} else {
+		_, imLo = cxSqrtPoint(xl, yl)
+	}
+	return C[T]{reLo.Hull(reHi), imLo.Hull(imHi)}
+}
+
+// cxSqrtPoint encloses the principal sqrt(x + iy) for (near-)point x, y,
+// using sqrt((|z|+x)/2) for the part that has no cancellation and y/(2t)
+// for the other. At y = 0 with x < 0 it gives Im = +sqrt(-x).
+func cxSqrtPoint[T Real[T]](x, y T) (re, im T) {
+	r := C[T]{x, y}.Abs()
+	zero := x.Int(0)
+	if x.Sign() >= 0 { // x is a point, so Sign 0 means x == 0
+		t := r.Add(x).Scale(-1).Sqrt()
+		if t.Sign() <= 0 { // x = y = 0
+			return zero, zero
+		}
+		return t, y.Quo(t).Scale(-1)
+	}
+	u := r.Sub(x).Scale(-1).Sqrt()
+	re = y.Abs().Quo(u).Scale(-1)
+	if y.Sign() < 0 {
+		return re, u.Neg()
+	}
+	return re, u
+}
+
+// Pow encloses the principal power z^w = exp(w log z). Where log z is not
+// enclosed (z touching 0 or the branch cut) the corresponding parts are
+// Whole; use Sqrt for w = 1/2 across the cut.
+func (z C[T]) Pow(w C[T]) C[T] {
+	l := z.Log()
+	if !l.IsFinite() {
+		return C[T]{z.Re.Whole(), z.Re.Whole()}
+	}
+	return w.Mul(l).Exp()
+}
+
+// cxMeet returns the intersection of two enclosures of the same value
+// (each part the intersection of the parts); if the parts are disjoint,
+// which only a bug can cause, the hull is returned instead.
+func cxMeet[T Real[T]](a, b C[T]) C[T] {
+	return C[T]{cxMeetR(a.Re, b.Re), cxMeetR(a.Im, b.Im)}
+}
+
+func cxMeetR[T Real[T]](a, b T) T {
+	if !a.IsFinite() {
+		return b
+	}
+	if !b.IsFinite() {
+		return a
+	}
+	al, ah := a.Endpoints()
+	bl, bh := b.Endpoints()
+	lo, hi := al, ah
+	if bl.Cmp(lo) > 0 {
+		lo = bl
+	}
+	if bh.Cmp(hi) < 0 {
+		hi = bh
+	}
+	if lo.Cmp(hi) > 0 {
+		return a.Hull(b)
+	}
+	// Between rounds outward at the receiver's precision; use the finer one.
+	like := a
+	if b.Prec() > a.Prec() {
+		like = b
+	}
+	return like.Between(new(big.Float).Copy(lo), new(big.Float).Copy(hi))
+}
