@@ -66,11 +66,14 @@ type ErrorTerms struct {
 	EntryQuadrature string `json:"entry_quadrature"`
 	// DiscardedPart bounds ||k - P k P|| (P: polynomials of degree < N).
 	DiscardedPart string `json:"discarded_part"`
-	// EigenResidual, EigenOrthogonality and EigenRadius are ||Hc Q - Q L||_F,
-	// ||Q^T Q - I||_F and the resulting Bauer-Fike radius.
-	EigenResidual      string `json:"eigen_residual"`
-	EigenOrthogonality string `json:"eigen_orthogonality"`
-	EigenRadius        string `json:"eigen_radius"`
+	// LowestShift and HighestShift are the gaps between the float extreme
+	// eigenvalues of the midpoint matrix Hc and the shifts sigma used for the
+	// semidefiniteness proofs; LowestResidual and HighestResidual bound
+	// ||R^T R - (+-(Hc - sigma I))||_F for the float Cholesky factors R.
+	LowestShift     string `json:"lowest_shift"`
+	LowestResidual  string `json:"lowest_cholesky_residual"`
+	HighestShift    string `json:"highest_shift"`
+	HighestResidual string `json:"highest_cholesky_residual"`
 	// AdvantageWitnessQuadrature and DeficitWitnessQuadrature are the Gauss
 	// remainders inside the two Rayleigh quotients.
 	AdvantageWitnessQuadrature string `json:"advantage_witness_quadrature"`
@@ -107,6 +110,14 @@ type Result struct {
 	// midpoint matrix that the outer bounds are built around.
 	LowestEstimate  string `json:"lowest_estimate"`
 	HighestEstimate string `json:"highest_estimate"`
+	// GalerkinLowest and GalerkinHighest are proved bounds
+	// lambda_min(G) >= GalerkinLowest and lambda_max(G) <= GalerkinHighest
+	// for the exact Galerkin matrix G of the real kernel at AlphaUsed (basis
+	// size BasisSize): the float estimates moved out by the eigen radius and
+	// both entry terms. A verifier can re-prove them independently (for
+	// example G - GalerkinLowest I positive semidefinite).
+	GalerkinLowest  string `json:"galerkin_lowest"`
+	GalerkinHighest string `json:"galerkin_highest"`
 
 	// Enclosures with float64 endpoints (not serialised).
 	AdvantageF interval.F `json:"-"`
@@ -246,7 +257,17 @@ func computeAt(alpha Alpha, enc interval.F, al float64, N, n int, opt Options) (
 	if err != nil {
 		return nil, err
 	}
-	rBF, resF, orthF, err := eigenEnclosure(Hc, vals, QT, w)
+	lam1, lamN := vals[0], vals[N-1]
+	for _, v := range vals {
+		lam1 = math.Min(lam1, v)
+		lamN = math.Max(lamN, v)
+	}
+	scale := math.Max(math.Abs(lam1), math.Abs(lamN))
+	sigLo, resLo, err := psdShift(Hc, N, lam1, 1, scale, w)
+	if err != nil {
+		return nil, err
+	}
+	sigHi, resHi, err := psdShift(Hc, N, lamN, -1, scale, w)
 	if err != nil {
 		return nil, err
 	}
@@ -256,24 +277,20 @@ func computeAt(alpha Alpha, enc interval.F, al float64, N, n int, opt Options) (
 	quadF := quadFrobenius(logC, N, qEta)
 	_, e1, e2 := bestTail(al, N)
 	tail := tailBound(al, N, e1, e2)
-	for _, t := range []interval.F{radF, quadF, tail, rBF, logC} {
+	for _, t := range []interval.F{radF, quadF, tail, resLo, resHi, logC} {
 		if !t.IsFinite() {
 			return nil, fmt.Errorf("strip: an error bound is not finite at alpha %g (N=%d, n=%d)", al, N, n)
 		}
 	}
 	eMat := upper(radF).Add(upper(quadF))
 
-	// Outer sides (Weyl): spec(H exact) within eMat of spec(Hc), which lies
-	// within rBF of the float values; P k P has the extra eigenvalue 0; k is
-	// within tail of P k P; K_alpha within eAlpha of k at al.
-	lam1, lamN := vals[0], vals[N-1]
-	for _, v := range vals {
-		lam1 = math.Min(lam1, v)
-		lamN = math.Max(lamN, v)
-	}
-	spread := upper(rBF).Add(eMat)
-	outerMin := interval.PointF(lam1).Sub(spread).Min(interval.PointF(0)).Sub(upper(tail)).Sub(upper(eAlpha))
-	outerMax := interval.PointF(lamN).Add(spread).Max(interval.PointF(0)).Add(upper(tail)).Add(upper(eAlpha))
+	// Outer sides (Weyl): spec(G) lies within eMat of spec(Hc), which is
+	// bounded by the semidefiniteness proofs; P k P has the extra eigenvalue
+	// 0; k is within tail of P k P; K_alpha within eAlpha of k at al.
+	gLow := lower(interval.PointF(sigLo).Sub(upper(resLo)).Sub(eMat))  // lambda_min(G) >= gLow
+	gHigh := upper(interval.PointF(sigHi).Add(upper(resHi)).Add(eMat)) // lambda_max(G) <= gHigh
+	outerMin := gLow.Min(interval.PointF(0)).Sub(upper(tail)).Sub(upper(eAlpha))
+	outerMax := gHigh.Max(interval.PointF(0)).Add(upper(tail)).Add(upper(eAlpha))
 
 	// Inner sides: Rayleigh quotients of the normalised float eigenvectors.
 	vMin := normalised(QT[indexOf(vals, lam1)])
@@ -324,9 +341,10 @@ func computeAt(alpha Alpha, enc interval.F, al float64, N, n int, opt Options) (
 			EntryRounding:              upStr(radF),
 			EntryQuadrature:            upStr(quadF),
 			DiscardedPart:              upStr(tail),
-			EigenResidual:              upStr(resF),
-			EigenOrthogonality:         upStr(orthF),
-			EigenRadius:                upStr(rBF),
+			LowestShift:                upStr(interval.PointF(lam1).Sub(interval.PointF(sigLo))),
+			LowestResidual:             upStr(resLo),
+			HighestShift:               upStr(interval.PointF(sigHi).Sub(interval.PointF(lamN))),
+			HighestResidual:            upStr(resHi),
 			AdvantageWitnessQuadrature: upStr(qMin),
 			DeficitWitnessQuadrature:   upStr(qMax),
 		},
@@ -337,6 +355,8 @@ func computeAt(alpha Alpha, enc interval.F, al float64, N, n int, opt Options) (
 		},
 		LowestEstimate:  exactDecimal(lam1),
 		HighestEstimate: exactDecimal(lamN),
+		GalerkinLowest:  exactDecimal(gLow.Lo()),
+		GalerkinHighest: exactDecimal(gHigh.Hi()),
 		AdvantageF:      adv,
 		DeficitF:        def,
 	}

@@ -19,8 +19,10 @@
 // float eigenvectors of the midpoint matrix give the witnesses: their
 // Rayleigh quotients, evaluated in interval arithmetic, are the inner side
 // of each bracket (variational principle, no truncation term). The outer
-// side is Bauer-Fike on the midpoint matrix, Weyl for the entry enclosure,
-// and Weyl again for the discarded part ||k - P k P|| <= ||k - k_N||_HS,
+// side proves Hc - sigma I (and sigma' I - Hc) positive semidefinite up to
+// the interval-enclosed residual of a float Cholesky factorisation of the
+// midpoint matrix Hc, then applies Weyl for the entry enclosure and Weyl
+// again for the discarded part ||k - P k P|| <= ||k - k_N||_HS,
 // where k_N is the truncated double Chebyshev series whose coefficients are
 // bounded from the maximum of |k| on a product of Bernstein ellipses.
 package strip

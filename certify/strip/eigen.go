@@ -58,56 +58,70 @@ func floatEigen(Hc []float64, N int) ([]float64, [][]float64, error) {
 	return vals, QT, nil
 }
 
-// eigenEnclosure proves that every eigenvalue of the float symmetric matrix
-// Hc lies within the returned radius of some float value vals[i], using the
-// Bauer-Fike theorem (F. L. Bauer and C. T. Fike, Numer. Math. 2 (1960)
-// 137): with R = Hc Q - Q diag(vals) and eps >= ||Q^T Q - I||_2 < 1,
-// Hc = Q diag(vals) Q^-1 + R Q^-1, so each eigenvalue is within
-// kappa(Q) ||R Q^-1|| <= ||R||_F sqrt(1 + eps)/(1 - eps) of some vals[i].
-// resF and orthF are the enclosed ||R||_F and ||Q^T Q - I||_F.
-func eigenEnclosure(Hc []float64, vals []float64, QT [][]float64, workers int) (radius, resF, orthF interval.F, err error) {
-	N := len(vals)
-	resRow := make([]interval.F, N)
-	orthRow := make([]interval.F, N)
-	parallelFor(N, workers, func(i int) {
-		// column i of R: R_ki = sum_l Hc[k][l] Q_li - Q_ki vals_i
-		q := QT[i]
-		lam := interval.PointF(vals[i])
-		var rs interval.F
+// psdShift proves lambda_min(sign (Hc - sigma I)) >= -resF, that is
+// lambda_min(Hc) >= sigma - resF for sign = +1 and lambda_max(Hc) <=
+// sigma + resF for sign = -1. Method: a float Cholesky factor R of
+// A = sign (Hc - sigma I) is only a candidate; the residual
+// E = R^T R - A is enclosed in interval arithmetic, and since R^T R is
+// positive semidefinite, A = R^T R - E >= -||E||_2 I >= -||E||_F I.
+// sigma is moved away from the float estimate est by a growing margin until
+// the float factorization succeeds.
+func psdShift(Hc []float64, N int, est float64, sign float64, scale float64, workers int) (sigma float64, resF interval.F, err error) {
+	margin := 1e-12 * math.Max(1, scale)
+	for try := 0; try < 8; try, margin = try+1, margin*8 {
+		sigma = est - sign*margin
+		S := mat.NewSymDense(N, nil)
+		for j := 0; j < N; j++ {
+			for k := j; k < N; k++ {
+				v := sign * Hc[j*N+k]
+				if j == k {
+					v -= sign * sigma
+				}
+				S.SetSym(j, k, v)
+			}
+		}
+		var ch mat.Cholesky
+		if !ch.Factorize(S) {
+			continue
+		}
+		var U mat.TriDense
+		ch.UTo(&U)
+		// RT[k] = column k of R (rows 0..k), contiguous.
+		RT := make([][]float64, N)
 		for k := 0; k < N; k++ {
-			row := Hc[k*N : (k+1)*N]
-			var s interval.F
-			for l := 0; l < N; l++ {
-				s = s.Add(interval.PointF(row[l]).Mul(interval.PointF(q[l])))
+			col := make([]float64, k+1)
+			for i := 0; i <= k; i++ {
+				col[i] = U.At(i, k)
 			}
-			s = s.Sub(interval.PointF(q[k]).Mul(lam))
-			rs = rs.Add(s.Sqr())
+			RT[k] = col
 		}
-		resRow[i] = rs
-		// Gram row i, j >= i.
-		var os interval.F
-		for j := i; j < N; j++ {
-			g := dotPoint(q, QT[j])
-			if j == i {
-				os = os.Add(g.Sub(interval.PointF(1)).Sqr())
-			} else {
-				os = os.Add(g.Sqr().Scale(1))
+		sg := interval.PointF(sign)
+		sig := interval.PointF(sigma)
+		rows := make([]interval.F, N)
+		parallelFor(N, workers, func(j int) {
+			var acc interval.F
+			for k := j; k < N; k++ {
+				// (R^T R)_jk = sum_{i <= j} R_ij R_ik
+				g := dotPoint(RT[j], RT[k][:j+1])
+				a := sg.Mul(interval.PointF(Hc[j*N+k]))
+				if j == k {
+					a = sg.Mul(interval.PointF(Hc[j*N+k]).Sub(sig))
+				}
+				e := g.Sub(a).Sqr()
+				if k != j {
+					e = e.Scale(1)
+				}
+				acc = acc.Add(e)
 			}
+			rows[j] = acc
+		})
+		var sum interval.F
+		for _, r := range rows {
+			sum = sum.Add(r)
 		}
-		orthRow[i] = os
-	})
-	var rs, os interval.F
-	for i := 0; i < N; i++ {
-		rs = rs.Add(resRow[i])
-		os = os.Add(orthRow[i])
+		return sigma, sum.Sqrt(), nil
 	}
-	resF, orthF = rs.Sqrt(), os.Sqrt()
-	one := interval.PointF(1)
-	if !(orthF.Hi() < 1) {
-		return interval.F{}.Whole(), resF, orthF, errors.New("strip: float eigenvectors are not close enough to orthonormal")
-	}
-	radius = resF.Mul(one.Add(orthF).Sqrt()).Quo(one.Sub(orthF))
-	return radius, resF, orthF, nil
+	return 0, interval.F{}.Whole(), errors.New("strip: float Cholesky factorization failed; cannot certify an eigenvalue bound")
 }
 
 // dotPoint encloses sum_i x_i y_i for float vectors.

@@ -368,7 +368,7 @@ func TestResultJSON(t *testing.T) {
 			t.Fatalf("witness coefficient %d does not round-trip", i)
 		}
 	}
-	for _, s := range []string{r.Errors.DiscardedPart, r.Errors.EntryQuadrature, r.Errors.EntryRounding, r.Errors.EigenRadius, r.Advantage.Lower, r.Deficit.Upper, r.Ellipses.TailX} {
+	for _, s := range []string{r.Errors.DiscardedPart, r.Errors.EntryQuadrature, r.Errors.EntryRounding, r.Errors.LowestResidual, r.Errors.HighestShift, r.Advantage.Lower, r.Deficit.Upper, r.Ellipses.TailX} {
 		if _, ok := new(big.Rat).SetString(s); !ok {
 			t.Errorf("%q is not a decimal", s)
 		}
