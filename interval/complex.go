@@ -1,6 +1,9 @@
 package interval
 
-import "math/big"
+import (
+	"math"
+	"math/big"
+)
 
 // C is a complex interval: the rectangle {a + ib : a in Re, b in Im}. Every
 // operation returns a rectangle containing f(z) for every z in the operand
@@ -70,16 +73,27 @@ func (z C[T]) Abs() T { return z.Abs2().Sqrt() }
 // Inv encloses 1/z as conj(z)/|z|^2; both parts are Whole when the
 // rectangle contains 0 (or comes so close that |z|^2 rounds to 0).
 func (z C[T]) Inv() C[T] {
-	d := z.Abs2()
-	return C[T]{z.Re.Quo(d), z.Im.Neg().Quo(d)}
+	r := recip(z.Abs2())
+	return C[T]{z.Re.Mul(r), z.Im.Neg().Mul(r)}
+}
+
+// recip encloses 1/d; Whole when d contains 0. On B a positive d takes two
+// directed divisions instead of the general quotient's eight.
+func recip[T Real[T]](d T) T {
+	if b, ok := any(d).(B); ok && !b.whole && b.l().Sign() > 0 {
+		p := b.p()
+		one := big.NewFloat(1)
+		return any(mkB(dn(p).Quo(one, b.h()), upf(p).Quo(one, b.l()), p)).(T)
+	}
+	return d.Int(1).Quo(d)
 }
 
 // Quo encloses z / w as z * conj(w) / |w|^2; both parts are Whole when the
 // divisor rectangle contains 0.
 func (z C[T]) Quo(w C[T]) C[T] {
-	d := w.Abs2()
+	r := recip(w.Abs2())
 	n := z.Mul(w.Conj())
-	return C[T]{n.Re.Quo(d), n.Im.Quo(d)}
+	return C[T]{n.Re.Mul(r), n.Im.Mul(r)}
 }
 
 // QuoReal encloses z / x for real x; Whole parts when x contains 0.
@@ -94,12 +108,66 @@ func (z C[T]) crossesCut() bool {
 
 // Arg encloses the principal argument in (-pi, pi] over the rectangle via
 // Atan2; it returns Whole (not an error) when the rectangle contains 0 or
-// meets the negative real axis, where the argument jumps by 2pi.
+// meets the negative real axis, where the argument jumps by 2pi. A
+// rectangle that is narrow relative to |z| is evaluated as atan of a
+// quotient at its midpoint plus a mean-value bound (one atan instead of
+// four corner evaluations).
 func (z C[T]) Arg() T {
 	if z.crossesCut() {
 		return z.Re.Whole()
 	}
+	if z.narrow() {
+		x, y := z.Re, z.Im
+		hp := x.Pi().Scale(-1)
+		switch {
+		case x.Sign() > 0: // atan(y/x)
+			return atanNarrow(y.Quo(x))
+		case y.Sign() > 0: // pi/2 - atan(x/y)
+			return hp.Sub(atanNarrow(x.Quo(y)))
+		case y.Sign() < 0: // -pi/2 - atan(x/y)
+			return hp.Neg().Sub(atanNarrow(x.Quo(y)))
+		}
+	}
 	return Atan2(z.Im, z.Re)
+}
+
+// narrow reports whether both sides of the rectangle are below 2^-20 of
+// its magnitude; it only selects an evaluation scheme.
+func (z C[T]) narrow() bool {
+	w := max(widthExp(z.Re), widthExp(z.Im))
+	return w == math.MinInt || w <= max(magExp(z.Re), magExp(z.Im))-20
+}
+
+// atanNarrow encloses atan over the interval q as atan(m) at the midpoint m
+// padded by |q - m| / (1 + min q^2), the mean-value bound (atan' = 1/(1+t^2)).
+func atanNarrow[T Real[T]](q T) T {
+	if !q.IsFinite() {
+		return q.Whole()
+	}
+	m := q.Mid()
+	e := q.Sub(m).Abs().Quo(q.Int(1).Add(Lower(q.Sqr())))
+	return Atan(m).Pad(e)
+}
+
+// logNarrow encloses log over the positive interval x as log(m) at the
+// midpoint padded by |x - m| / min x (mean-value bound); for a wide x it
+// is Log(x).
+func logNarrow[T Real[T]](x T) T {
+	if x.Sign() <= 0 || widthExp(x) > magExp(x)-20 {
+		return Log(x)
+	}
+	m := x.Mid()
+	return Log(m).Pad(x.Sub(m).Abs().Quo(Lower(x)))
+}
+
+// log1pNarrow is logNarrow for log1p on an interval t > -1.
+func log1pNarrow[T Real[T]](t T) T {
+	one := t.Int(1)
+	if !t.IsFinite() || one.Add(t).Sign() <= 0 || widthExp(t) > magExp(one.Add(t))-20 {
+		return Log1p(t)
+	}
+	m := t.Mid()
+	return Log1p(m).Pad(t.Sub(m).Abs().Quo(one.Add(Lower(t))))
 }
 
 // Exp encloses e^z = e^a (cos b + i sin b) over the rectangle; a part is
@@ -124,9 +192,9 @@ func (z C[T]) Log() C[T] {
 		// ln|z| = log1p((x-1)(x+1) + y^2)/2 keeps its relative accuracy
 		// near |z| = 1, where log(x^2 + y^2) would cancel.
 		one := z.Re.Int(1)
-		re = Log1p(z.Re.Sub(one).Mul(z.Re.Add(one)).Add(z.Im.Sqr())).Scale(-1)
+		re = log1pNarrow(z.Re.Sub(one).Mul(z.Re.Add(one)).Add(z.Im.Sqr())).Scale(-1)
 	} else {
-		re = Log(a2).Scale(-1)
+		re = logNarrow(a2).Scale(-1)
 	}
 	return C[T]{re, z.Arg()}
 }

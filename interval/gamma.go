@@ -238,7 +238,7 @@ func powerSum[T Real[T]](z C[T], s, m int) C[T] {
 			a = a.Add(one)
 		}
 		a2 := a.Sqr()
-		inv := one.Quo(a2.Add(y2))
+		inv := recip(a2.Add(y2))
 		switch m {
 		case 1: // (a - iy)/d
 			re = re.Add(a.Mul(inv))
