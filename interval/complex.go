@@ -26,7 +26,13 @@ func (z C[T]) Contains(w C[T]) bool { return z.Re.Contains(w.Re) && z.Im.Contain
 // Hull returns the smallest rectangle containing z and w.
 func (z C[T]) Hull(w C[T]) C[T] { return C[T]{z.Re.Hull(w.Re), z.Im.Hull(w.Im)} }
 
-// Add encloses z + w exactly as the sum of the parts' enclosures.
+// CPoint returns the point re + i im at like's precision (like's value is
+// ignored); exact for every float64 pair, Whole parts for NaN or Inf.
+func CPoint[T Real[T]](like T, re, im float64) C[T] {
+	return C[T]{Re: like.Float(re), Im: like.Float(im)}
+}
+
+// Add encloses z + w.
 func (z C[T]) Add(w C[T]) C[T] { return C[T]{z.Re.Add(w.Re), z.Im.Add(w.Im)} }
 
 // Sub encloses z - w.
@@ -171,11 +177,44 @@ func log1pNarrow[T Real[T]](t T) T {
 }
 
 // Exp encloses e^z = e^a (cos b + i sin b) over the rectangle; a part is
-// Whole only when e^a overflows the real type.
+// Whole only when e^a overflows the real type. A part narrower than 2^-20
+// is evaluated at its midpoint with a mean-value bound (one exp and one
+// sin/cos evaluation instead of one per endpoint).
 func (z C[T]) Exp() C[T] {
-	ea := Exp(z.Re)
-	s, c := SinCos(z.Im)
+	ea := expNarrow(z.Re)
+	s, c := sinCosNarrow(z.Im)
 	return C[T]{ea.Mul(c), ea.Mul(s)}
+}
+
+// expNarrow encloses exp over x; for 0 < rad x = r <= 2^-20 it uses
+// e^v = e^m e^(v-m) with e^(v-m) in [e^-r, e^r], inside [1-r, 1+r+r^2].
+func expNarrow[T Real[T]](x T) T {
+	w := widthExp(x)
+	if !x.IsFinite() || w == math.MinInt || w > -20 {
+		return Exp(x)
+	}
+	m := x.Mid()
+	r := Upper(x.Sub(m).Abs())
+	one := x.Int(1)
+	f := one.Sub(r).Hull(one.Add(r).Add(r.Sqr()))
+	return Exp(m).Mul(f)
+}
+
+// sinCosNarrow encloses sin and cos over x; for 0 < rad x = r <= 2^-20 it
+// pads sin m and cos m by r min(1, |cos m| + r) and r min(1, |sin m| + r)
+// (the derivative of sin on the interval is at most |cos m| + r).
+func sinCosNarrow[T Real[T]](x T) (sin, cos T) {
+	w := widthExp(x)
+	if !x.IsFinite() || w == math.MinInt || w > -20 {
+		return SinCos(x)
+	}
+	m := x.Mid()
+	r := Upper(x.Sub(m).Abs())
+	one := x.Int(1)
+	s, c := SinCos(m)
+	es := r.Mul(c.Abs().Add(r).Min(one))
+	ec := r.Mul(s.Abs().Add(r).Min(one))
+	return s.Pad(es), c.Pad(ec)
 }
 
 // Log encloses the principal logarithm ln|z| + i Arg z. When the rectangle

@@ -117,9 +117,13 @@ func gammaWidthClass[T Real[T]](z C[T], p uint) int {
 	return 1
 }
 
-// widthExp returns e with 2^(e-1) <= hi - lo < 2^e, or MinInt for a point.
+// widthExp returns e with 2^(e-1) <= hi - lo < 2^e, MinInt for a point
+// and MaxInt for an unbounded x.
 func widthExp[T Real[T]](x T) int {
 	l, h := x.Endpoints()
+	if l == nil {
+		return math.MaxInt
+	}
 	d := new(big.Float).SetPrec(32).SetMode(big.ToPositiveInf).Sub(h, l)
 	if d.Sign() == 0 {
 		return math.MinInt
@@ -127,9 +131,13 @@ func widthExp[T Real[T]](x T) int {
 	return d.MantExp(nil)
 }
 
-// magExp returns e with max(|lo|, |hi|) < 2^e (MinInt for the point 0).
+// magExp returns e with max(|lo|, |hi|) < 2^e (MinInt for the point 0,
+// MaxInt for an unbounded x).
 func magExp[T Real[T]](x T) int {
 	l, h := x.Endpoints()
+	if l == nil {
+		return math.MaxInt
+	}
 	e := math.MinInt
 	if l.Sign() != 0 {
 		e = l.MantExp(nil)
