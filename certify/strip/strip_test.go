@@ -509,3 +509,66 @@ func TestQuadratureBoundHolds(t *testing.T) {
 		}
 	}
 }
+
+// psdShift on a matrix with known spectrum: Q diag(d) Q^T with Q a product
+// of Householder reflections (exactly orthogonal in exact arithmetic; the
+// float matrix is within 1e-15 of one with spectrum d).
+func TestPSDShift(t *testing.T) {
+	const N = 40
+	d := make([]float64, N)
+	for i := range d {
+		d[i] = -0.5 + float64(i)/N
+	}
+	A := make([]float64, N*N)
+	for i := 0; i < N; i++ {
+		A[i*N+i] = d[i]
+	}
+	for h := 0; h < 3; h++ {
+		v := make([]float64, N)
+		var nv float64
+		for i := range v {
+			v[i] = math.Sin(float64(7*i+3*h) + 1)
+			nv += v[i] * v[i]
+		}
+		// A <- (I - 2vv^T/nv) A (I - 2vv^T/nv)
+		P := make([]float64, N*N)
+		for i := 0; i < N; i++ {
+			for j := 0; j < N; j++ {
+				P[i*N+j] = -2 * v[i] * v[j] / nv
+				if i == j {
+					P[i*N+j]++
+				}
+			}
+		}
+		A = mul(mul(P, A, N), P, N)
+	}
+	for i := 0; i < N; i++ {
+		for j := 0; j < i; j++ {
+			A[i*N+j] = A[j*N+i]
+		}
+	}
+	sig, res, err := psdShift(A, N, d[0], 1, 1, 1)
+	if err != nil || !(sig-res.Hi() <= d[0]+1e-13) || !(sig-res.Hi() > d[0]-1e-10) {
+		t.Errorf("lower: sigma %v res %v err %v", sig, res, err)
+	}
+	sig, res, err = psdShift(A, N, d[N-1], -1, 1, 1)
+	if err != nil || !(sig+res.Hi() >= d[N-1]-1e-13) || !(sig+res.Hi() < d[N-1]+1e-10) {
+		t.Errorf("upper: sigma %v res %v err %v", sig, res, err)
+	}
+	// A wrong estimate (above the true minimum) cannot be certified.
+	if _, _, err := psdShift(A, N, d[0]+0.1, 1, 1, 1); err == nil {
+		t.Errorf("an estimate above lambda_min was certified")
+	}
+}
+
+func mul(a, b []float64, n int) []float64 {
+	c := make([]float64, n*n)
+	for i := 0; i < n; i++ {
+		for k := 0; k < n; k++ {
+			for j := 0; j < n; j++ {
+				c[i*n+j] += a[i*n+k] * b[k*n+j]
+			}
+		}
+	}
+	return c
+}

@@ -1,0 +1,179 @@
+// Package certify turns relaxations into proofs: it covers the Mellin
+// variable s with cells, encloses the extreme eigenvalue of the 2x2 symbol
+// on each cell in interval arithmetic, refines cells whose margin is thin,
+// and closes the cover with tail lemmas.
+package certify
+
+import (
+	"fmt"
+	"math/big"
+	"runtime"
+	"sync"
+
+	"wedgebound/interval"
+)
+
+// CellFunc encloses a real function over the closed cell s (an interval):
+// the result must contain f(t) for every t in s.
+type CellFunc[T interval.Real[T]] func(s T) T
+
+// ProvedCell is a cell [Lo, Hi] of the cover with an enclosure of the
+// function over it. Lo and Hi are exact terminating decimals.
+type ProvedCell[T interval.Real[T]] struct {
+	Lo, Hi *big.Rat
+	Value  T
+}
+
+// CoverOptions controls the adaptive refinement.
+type CoverOptions struct {
+	// MinWidth stops bisection: a cell narrower than this is accepted with
+	// whatever enclosure it has (which is then the proved value there).
+	MinWidth *big.Rat
+	// MaxCells caps the number of cells produced; 0 means 1e6.
+	MaxCells int
+	// Workers is the number of goroutines; 0 means GOMAXPROCS. The result does
+	// not depend on it.
+	Workers int
+	// Progress, if set, is called with the number of initial pieces done and
+	// their total.
+	Progress func(done, total int)
+}
+
+// cellInterval encloses the exact decimal cell [lo, hi] in T.
+func cellInterval[T interval.Real[T]](like T, lo, hi *big.Rat) T {
+	a, _ := like.Decimal(lo.FloatString(decimals(lo)))
+	b, _ := like.Decimal(hi.FloatString(decimals(hi)))
+	return a.Hull(b)
+}
+
+// decimals returns the number of decimal places of a terminating decimal
+// (one whose denominator is 2^i 5^j), or 40 if it does not terminate.
+func decimals(r *big.Rat) int {
+	d := new(big.Int).Set(r.Denom())
+	n2, n5 := 0, 0
+	for d.Bit(0) == 0 {
+		d.Rsh(d, 1)
+		n2++
+	}
+	five := big.NewInt(5)
+	q, m := new(big.Int), new(big.Int)
+	for {
+		q.QuoRem(d, five, m)
+		if m.Sign() != 0 {
+			break
+		}
+		d.Set(q)
+		n5++
+	}
+	if d.Cmp(big.NewInt(1)) != 0 {
+		return 40
+	}
+	if n5 > n2 {
+		return n5
+	}
+	return n2
+}
+
+// Cover encloses f on every cell of the partition given by the increasing
+// exact breakpoints grid (terminating decimals), bisecting a cell while
+// accept rejects its enclosure and it is wider than MinWidth. Cells come
+// back in increasing order, contiguous from grid[0] to grid[last]. The
+// result is the same for any number of workers.
+func Cover[T interval.Real[T]](like T, f CellFunc[T], grid []*big.Rat, accept func(T) bool, opt CoverOptions) ([]ProvedCell[T], error) {
+	if len(grid) < 2 {
+		return nil, fmt.Errorf("certify: a cover needs at least two breakpoints")
+	}
+	for i := range grid {
+		if decimals(grid[i]) >= 40 {
+			return nil, fmt.Errorf("certify: breakpoint %s is not a short terminating decimal", grid[i].RatString())
+		}
+		if i > 0 && grid[i-1].Cmp(grid[i]) >= 0 {
+			return nil, fmt.Errorf("certify: breakpoints must increase (at %d)", i)
+		}
+	}
+	maxCells := opt.MaxCells
+	if maxCells == 0 {
+		maxCells = 1_000_000
+	}
+	minW := opt.MinWidth
+	if minW == nil {
+		minW = big.NewRat(1, 1_000_000_000)
+	}
+	workers := opt.Workers
+	if workers <= 0 {
+		workers = runtime.GOMAXPROCS(0)
+	}
+	n := len(grid) - 1
+	parts := make([][]ProvedCell[T], n)
+	var (
+		mu    sync.Mutex
+		total int
+		done  int
+		over  bool
+		wg    sync.WaitGroup
+	)
+	jobs := make(chan int)
+	for range workers {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			for i := range jobs {
+				cells := refine(like, f, grid[i], grid[i+1], accept, minW, maxCells)
+				mu.Lock()
+				parts[i] = cells
+				total += len(cells)
+				if total > maxCells {
+					over = true
+				}
+				done++
+				if opt.Progress != nil {
+					opt.Progress(done, n)
+				}
+				mu.Unlock()
+			}
+		}()
+	}
+	for i := range n {
+		mu.Lock()
+		stop := over
+		mu.Unlock()
+		if stop {
+			break
+		}
+		jobs <- i
+	}
+	close(jobs)
+	wg.Wait()
+	if over {
+		return nil, fmt.Errorf("certify: the cover needs more than %d cells", maxCells)
+	}
+	var out []ProvedCell[T]
+	for _, p := range parts {
+		out = append(out, p...)
+	}
+	return out, nil
+}
+
+// refine bisects [lo, hi] depth-first, left to right.
+func refine[T interval.Real[T]](like T, f CellFunc[T], lo, hi *big.Rat, accept func(T) bool, minW *big.Rat, maxCells int) []ProvedCell[T] {
+	type span struct{ lo, hi *big.Rat }
+	stack := []span{{lo, hi}}
+	var out []ProvedCell[T]
+	half := big.NewRat(1, 2)
+	// Stopping at maxCells+1 cells leaves the piece incomplete, but then the
+	// caller's total exceeds maxCells and Cover returns an error.
+	for len(stack) > 0 && len(out) <= maxCells {
+		c := stack[len(stack)-1]
+		stack = stack[:len(stack)-1]
+		v := f(cellInterval(like, c.lo, c.hi))
+		w := new(big.Rat).Sub(c.hi, c.lo)
+		if accept(v) || w.Cmp(minW) <= 0 {
+			out = append(out, ProvedCell[T]{Lo: c.lo, Hi: c.hi, Value: v})
+			continue
+		}
+		mid := new(big.Rat).Add(c.lo, c.hi)
+		mid.Mul(mid, half)
+		stack = append(stack, span{mid, c.hi}, span{c.lo, mid})
+	}
+	return out
+}

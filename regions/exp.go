@@ -1,0 +1,411 @@
+package regions
+
+import (
+	"fmt"
+	"math"
+	"math/cmplx"
+	"sync"
+
+	"wedgebound/interval"
+)
+
+// expTerm is the exponential profile h(xp) = e^{-k xp} on quadrant III,
+// k > 0. With G(u) = e^{-ku}, G^(w) = 1/(k - i w), and the quadrant-I
+// entries of MATH.md section 3 evaluate to
+//
+//	M_{++}(s) = e^{2 theta s} / (|k + 2i| cosh(pi s)),  theta = atan(2/k),
+//	M_{+-}(s) = I(s) / (pi (k - 2i)),  I(s) = int_0^1 r^{a-1}/(1 - q r) dr,
+//
+// a = 1/2 + is, q = (k + 2i)/(k - 2i) = e^{2 i theta}. The first is the
+// Mellin integral int_0^inf r^{a-1}/(alpha + beta r) dr =
+// alpha^{-1} (beta/alpha)^{-a} pi / sin(pi a) with alpha = k - 2i,
+// beta = k + 2i. By parity the quadrant-III profile contributes
+// D = M_{++} and B = conj(M_{+-}).
+//
+// I(s) is computed as int_0^inf e^{-a t}/(1 - q e^{-t}) dt (t = -log r),
+// whose poles t = i(2 theta + 2 pi n) lie on the imaginary axis. For
+// s >= 1 the path is turned to t = y e^{-i pi/4}, for s <= -1 to
+// t = y e^{i pi/4} (no pole is crossed and the arc at infinity vanishes
+// because Re(a t) -> +inf inside the sector), so the integrand decays like
+// e^{-c y} with c = (1/2 + |s|)/sqrt 2 and no digits are lost for large |s|.
+// The path is cut at Y with the tail bound e^{-cY}/(c (1 - e^{-Y cos phi}))
+// and split into panels; each panel uses Gauss-Legendre with the
+// Bernstein-ellipse remainder of gaussBound, M being a rigorous bound of the
+// integrand (over the whole s-range of the regime) on boxes covering the
+// ellipse.
+type expTerm[T interval.Real[T]] struct {
+	kStr  string
+	k     T
+	theta T
+	mod   T // |k + 2i|
+	q     interval.C[T]
+	kp    interval.C[T] // k + 2i
+
+	mu      sync.Mutex
+	regimes map[int]*expRegime[T]
+}
+
+// expRegime is the quadrature for s in [lo, hi]: I(s) lies in
+// sum_j h_j e^{-i s t_j} padded by err for every s there.
+type expRegime[T interval.Real[T]] struct {
+	lo, hi T
+	t, h   []interval.C[T]
+	err    T
+	ft, fh []complex128
+}
+
+const expNodes = 20
+
+func newExpTerm[T interval.Real[T]](like T, params map[string]string) (Term[T], error) {
+	if len(params) != 1 || params["k"] == "" {
+		return nil, fmt.Errorf("exp term needs exactly the parameter k")
+	}
+	r, err := ParseRat(params["k"])
+	if err != nil {
+		return nil, fmt.Errorf("exp term k: %v", err)
+	}
+	if r.Sign() <= 0 {
+		return nil, fmt.Errorf("exp term k must be positive, not %s", params["k"])
+	}
+	kf, _ := r.Float64()
+	if kf < 1e-6 || kf > 1e6 {
+		return nil, fmt.Errorf("exp term k = %s is outside [1e-6, 1e6]", params["k"])
+	}
+	k, err := like.Decimal(params["k"])
+	if err != nil {
+		return nil, err
+	}
+	return NewExp(k, RatString(r)), nil
+}
+
+// NewExp returns the exponential term e^{-k xp} for the exact k enclosed by
+// k (kStr is its decimal form, recorded in certificates).
+func NewExp[T interval.Real[T]](k T, kStr string) Term[T] {
+	two := k.Int(2)
+	kp := interval.C[T]{Re: k, Im: two}
+	km := kp.Conj()
+	return &expTerm[T]{
+		kStr: kStr, k: k,
+		theta:   interval.Atan(two.Quo(k)),
+		mod:     kp.Abs(),
+		q:       kp.Quo(km),
+		kp:      kp,
+		regimes: map[int]*expRegime[T]{},
+	}
+}
+
+func (e *expTerm[T]) Kind() string              { return "exp" }
+func (e *expTerm[T]) Params() map[string]string { return map[string]string{"k": e.kStr} }
+func (e *expTerm[T]) Start() string             { return "0" }
+
+// regimeIndex maps s to its regime: 0 for |s| <= 1, +-(m+1) for
+// 2^m <= |s| <= 2^(m+1).
+func regimeIndex(s float64) int {
+	a := math.Abs(s)
+	if a <= 1 {
+		return 0
+	}
+	m := int(math.Floor(math.Log2(a)))
+	if math.Ldexp(1, m) > a {
+		m--
+	}
+	if m > 60 {
+		m = 60
+	}
+	if s < 0 {
+		return -(m + 1)
+	}
+	return m + 1
+}
+
+func regimeRange(idx int) (float64, float64) {
+	if idx == 0 {
+		return -1, 1
+	}
+	m := idx
+	if m < 0 {
+		m = -m
+	}
+	lo, hi := math.Ldexp(1, m-1), math.Ldexp(1, m)
+	if idx < 0 {
+		return -hi, -lo
+	}
+	return lo, hi
+}
+
+func (e *expTerm[T]) regime(idx int) (*expRegime[T], error) {
+	e.mu.Lock()
+	defer e.mu.Unlock()
+	if r, ok := e.regimes[idx]; ok {
+		return r, nil
+	}
+	r, err := e.buildRegime(idx)
+	if err != nil {
+		return nil, err
+	}
+	e.regimes[idx] = r
+	return r, nil
+}
+
+// buildRegime sets up the turned path, panels, nodes and error bound for
+// the regime idx.
+func (e *expTerm[T]) buildRegime(idx int) (*expRegime[T], error) {
+	like := e.k
+	slo, shi := regimeRange(idx)
+	sr := like.Float(slo).Hull(like.Float(shi))
+	dir := 0 // path t = y e^{i dir pi/4}
+	switch {
+	case idx > 0:
+		dir = -1
+	case idx < 0:
+		dir = 1
+	}
+	one := like.Int(1)
+	rot := interval.C[T]{Re: one, Im: like.Int(0)}
+	cosphi := one
+	var c float64 // decay rate along the path, lower bound over the regime
+	if dir != 0 {
+		r2 := like.Int(2).Sqrt().Quo(like.Int(2))
+		rot = interval.C[T]{Re: r2, Im: r2.Mul(like.Int(int64(dir)))}
+		cosphi = r2
+		c = (0.5 + math.Min(math.Abs(slo), math.Abs(shi))) / math.Sqrt2 * 0.999
+	} else {
+		c = 0.5 * 0.999
+	}
+	omega := math.Max(math.Abs(slo), math.Abs(shi)) + 1
+	if dir != 0 {
+		omega /= math.Sqrt2
+	}
+	Yf := 48 / c
+	Y := like.Float(Yf)
+	// Tail beyond Y: |e^{-at}| <= e^{-c y}, |1 - q e^{-t}| >= 1 - e^{-y cos phi}.
+	cT := like.Float(c)
+	cCheck := e.decayLower(sr, dir)
+	if cCheck.Less(cT) {
+		return nil, fmt.Errorf("exp term: decay rate check failed in regime %d", idx)
+	}
+	tail := interval.Exp(cT.Mul(Y).Neg()).Quo(cT.Mul(one.Sub(interval.Exp(Y.Mul(cosphi).Neg()))))
+	// Panels: geometric from the pole scale, then uniform of length L.
+	thetaF := e.theta.Lo()
+	d := math.Max(2*thetaF/math.Sqrt2, 1e-12)
+	L := math.Min(2/c, 2/omega)
+	edges := []float64{0, math.Min(d/2, L)}
+	for edges[len(edges)-1] < Yf {
+		last := edges[len(edges)-1]
+		next := last + math.Min(last, L)
+		if next > Yf {
+			next = Yf
+		}
+		edges = append(edges, next)
+	}
+	rule, err := gaussLegendre(like, expNodes)
+	if err != nil {
+		return nil, err
+	}
+	reg := &expRegime[T]{lo: sr, hi: sr}
+	total := tail
+	for p := 0; p+1 < len(edges); p++ {
+		y0, y1 := like.Float(edges[p]), like.Float(edges[p+1])
+		if p+1 == len(edges)-1 {
+			y1 = Y
+		}
+		mid := y0.Add(y1).Scale(-1)
+		hh := y1.Sub(y0).Scale(-1)
+		b, ok := e.panelBound(sr, rot, mid, hh)
+		if !ok {
+			return nil, fmt.Errorf("exp term k=%s: no analytic ellipse for panel %d of regime %d", e.kStr, p, idx)
+		}
+		total = total.Add(b)
+		for j := range rule.x {
+			y := mid.Add(hh.Mul(rule.x[j]))
+			t := rot.MulReal(y)
+			g := e.integrandNoS(t)
+			h := g.Mul(rot).MulReal(hh.Mul(rule.w[j]))
+			reg.t = append(reg.t, t)
+			reg.h = append(reg.h, h)
+			reg.ft = append(reg.ft, complex((t.Re.Lo()+t.Re.Hi())/2, (t.Im.Lo()+t.Im.Hi())/2))
+			reg.fh = append(reg.fh, complex((h.Re.Lo()+h.Re.Hi())/2, (h.Im.Lo()+h.Im.Hi())/2))
+		}
+	}
+	if !total.IsFinite() {
+		return nil, fmt.Errorf("exp term k=%s: error bound not finite in regime %d", e.kStr, idx)
+	}
+	reg.err = total
+	return reg, nil
+}
+
+// decayLower encloses min over s in sr of Re(a t)/y = cos phi/2 - s sin phi.
+func (e *expTerm[T]) decayLower(sr T, dir int) T {
+	if dir == 0 {
+		return sr.Frac(1, 2)
+	}
+	r2 := sr.Int(2).Sqrt().Quo(sr.Int(2))
+	// cos phi = r2, sin phi = dir r2: r2 (1/2 - dir s).
+	v := sr.Frac(1, 2).Sub(sr.Mul(sr.Int(int64(dir)))).Mul(r2)
+	return interval.Lower(v)
+}
+
+// integrandNoS encloses e^{-t/2} / (1 - q e^{-t}), the s-free part of the
+// integrand (the full integrand is this times e^{-i s t}).
+func (e *expTerm[T]) integrandNoS(t interval.C[T]) interval.C[T] {
+	one := interval.RealC(t.Re.Int(1))
+	et := t.Neg().Exp()
+	den := one.Sub(e.q.Mul(et))
+	return t.Scale(-1).Neg().Exp().Quo(den)
+}
+
+// panelBound returns the Gauss remainder bound for the panel with centre mid
+// and half-length hh, minimised over a few ellipse parameters rho. The
+// integrand modulus |e^{-a t}|/|1 - q e^{-t}| is bounded for all s in sr on a
+// grid of boxes covering the ellipse's bounding box.
+func (e *expTerm[T]) panelBound(sr T, rot interval.C[T], mid, hh T) (T, bool) {
+	var best T
+	found := false
+	for _, rf := range []float64{8, 5, 3.5, 2.5, 1.8, 1.4, 1.2} {
+		rho := mid.Float(rf)
+		inv := mid.Int(1).Quo(rho)
+		ax := hh.Mul(rho.Add(inv)).Scale(-1) // semi-major
+		bx := hh.Mul(rho.Sub(inv)).Scale(-1) // semi-minor
+		M, ok := e.boxMax(sr, rot, mid.Sub(ax), mid.Add(ax), bx)
+		if !ok {
+			continue
+		}
+		b := gaussBound(M, rho, expNodes).Mul(hh)
+		if !found || b.Hi() < best.Hi() {
+			best, found = b, true
+		}
+	}
+	return best, found
+}
+
+// boxMax bounds |e^{-a t}/(1 - q e^{-t})| for t = rot*(x + i y),
+// x in [x0, x1], |y| <= by, s in sr, by a 8 x 4 grid of boxes.
+func (e *expTerm[T]) boxMax(sr T, rot interval.C[T], x0, x1, by T) (T, bool) {
+	const nx, ny = 8, 4
+	x0l, x1h := interval.Lower(x0), interval.Upper(x1)
+	w := x1h.Sub(x0l)
+	M := sr.Int(0)
+	one := interval.RealC(sr.Int(1))
+	for i := range nx {
+		xa := x0l.Add(w.Mul(sr.Frac(int64(i), nx)))
+		xb := x0l.Add(w.Mul(sr.Frac(int64(i+1), nx)))
+		for j := range ny {
+			ya := by.Mul(sr.Frac(int64(2*j-ny), ny))
+			yb := by.Mul(sr.Frac(int64(2*j+2-ny), ny))
+			z := interval.C[T]{Re: xa.Hull(xb), Im: ya.Hull(yb)}
+			t := rot.Mul(z)
+			// Re(a t) = Re t/2 - s Im t.
+			re := t.Re.Scale(-1).Sub(sr.Mul(t.Im))
+			num := interval.Exp(re.Neg())
+			den := one.Sub(e.q.Mul(t.Neg().Exp())).Abs()
+			if den.Sign() <= 0 || !num.IsFinite() {
+				return M, false
+			}
+			M = M.Max(interval.Upper(num.Quo(interval.Lower(den))))
+		}
+	}
+	return M, M.IsFinite()
+}
+
+// integralI encloses I(s) for every s in the interval s, which must lie
+// within one regime.
+func (e *expTerm[T]) integralI(s T, idx int) (interval.C[T], error) {
+	r, err := e.regime(idx)
+	if err != nil {
+		return interval.C[T]{}, err
+	}
+	sum := interval.RealC(s.Int(0))
+	for j, t := range r.t {
+		// e^{-i s t} = e^{s Im t} (cos(s Re t) - i sin(s Re t))
+		mag := interval.Exp(s.Mul(t.Im))
+		sn, cs := interval.SinCos(s.Mul(t.Re))
+		f := interval.C[T]{Re: cs.Mul(mag), Im: sn.Mul(mag).Neg()}
+		sum = sum.Add(r.h[j].Mul(f))
+	}
+	return interval.C[T]{Re: sum.Re.Pad(r.err), Im: sum.Im.Pad(r.err)}, nil
+}
+
+// Enclose returns D = M_{++} and B = conj(M_{+-}) for every s in s.
+func (e *expTerm[T]) Enclose(s T) Symbol[T] {
+	pi := s.Pi()
+	as := s.Abs()
+	// D = 2 e^{2 theta s - pi |s|} / (|k+2i| (1 + e^{-2 pi |s|})), which is
+	// e^{2 theta s}/(|k+2i| cosh(pi s)) without overflow.
+	num := interval.Exp(e.theta.Scale(1).Mul(s).Sub(pi.Mul(as))).Scale(1)
+	den := e.mod.Mul(s.Int(1).Add(interval.Exp(pi.Scale(1).Mul(as).Neg())))
+	d := num.Quo(den)
+	// Split s over regimes.
+	var I interval.C[T]
+	first := true
+	lo, hi := regimeIndex(s.Lo()), regimeIndex(s.Hi())
+	for idx := lo; idx <= hi; idx++ {
+		part := s
+		rlo, rhi := regimeRange(idx)
+		part = intersectReal(s, s.Float(rlo).Hull(s.Float(rhi)))
+		v, err := e.integralI(part, idx)
+		if err != nil {
+			w := s.Whole()
+			return Symbol[T]{A: s.Int(0), D: d, B: interval.C[T]{Re: w, Im: w}}
+		}
+		if first {
+			I, first = v, false
+		} else {
+			I = I.Hull(v)
+		}
+	}
+	// B = conj(I/(pi (k - 2i))) = conj(I) / (pi (k + 2i)).
+	b := I.Conj().Quo(e.kp.MulReal(pi))
+	return Symbol[T]{A: s.Int(0), D: d, B: b}
+}
+
+// intersectReal returns the intersection of x and y (assumed to overlap).
+func intersectReal[T interval.Real[T]](x, y T) T {
+	lo := x.Max(y)
+	hi := x.Min(y)
+	return interval.Lower(lo).Hull(interval.Upper(hi))
+}
+
+// Tail bounds |D| and |B| for side*s >= S.
+//
+// Lemma. For |s| >= S > 0:
+// |D(s)| <= 2 e^{-(pi - 2 side theta) S}/|k + 2i| (from cosh(pi s) >=
+// e^{pi |s|}/2 and 0 < theta < pi/2), and
+// |B(s)| <= (1/4 + pi/(4 sqrt 2) + 0.9429/|k + 2i|)/(pi S).
+// Proof of the second: integrating r^{a-1} by parts,
+// I = 1/(a(1-q)) - (q/a) int_0^1 r^a (1 - q r)^{-2} dr, so
+// |I| <= (1/|a|) [1/|1-q| + int_0^1 r^{1/2}/|1-qr|^2 dr]. Here
+// |1 - q| = 2 sin theta, sin theta = 2/|k+2i|, and
+// |1 - q r|^2 = (1-r)^2 + 4 r sin^2 theta: on [0, 1/2] the integrand is at
+// most 4 r^{1/2} (integral (8/3) 2^{-3/2} < 0.9429), on [1/2, 1] at most
+// 1/((1-r)^2 + 2 sin^2 theta) (integral < pi/(2 sqrt 2 sin theta)). With
+// |B| = |I|/(pi |k+2i|) and |a| >= |s| >= S the bound follows.
+func (e *expTerm[T]) Tail(S T, side int) (T, T) {
+	pi := S.Pi()
+	ex := pi.Sub(e.theta.Scale(1).Mul(S.Int(int64(side)))).Mul(S).Neg()
+	dmax := interval.Exp(ex).Scale(1).Quo(e.mod)
+	c, _ := S.Decimal("0.9429")
+	r2 := S.Int(2).Sqrt()
+	k := S.Frac(1, 4).Add(pi.Quo(r2.Scale(2))).Add(c.Quo(e.mod))
+	bmax := k.Quo(pi.Mul(S))
+	return interval.Upper(dmax), interval.Upper(bmax)
+}
+
+// Approx returns float64 values of D(s) and B(s) from the same quadrature
+// (midpoint nodes; not certified).
+func (e *expTerm[T]) Approx(s float64) (float64, complex128) {
+	theta := math.Atan(2 / e.k.Lo())
+	kf := (e.k.Lo() + e.k.Hi()) / 2
+	mod := math.Hypot(kf, 2)
+	as := math.Abs(s)
+	d := 2 * math.Exp(2*theta*s-math.Pi*as) / (mod * (1 + math.Exp(-2*math.Pi*as)))
+	r, err := e.regime(regimeIndex(s))
+	if err != nil {
+		return d, cmplx.NaN()
+	}
+	var sum complex128
+	for j, t := range r.ft {
+		sum += r.fh[j] * cmplx.Exp(complex(0, -s)*t)
+	}
+	b := cmplx.Conj(sum) / (complex(math.Pi, 0) * complex(kf, 2))
+	return d, b
+}

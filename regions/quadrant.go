@@ -1,0 +1,135 @@
+package regions
+
+import "wedgebound/interval"
+
+// Quadrant encloses the Mellin symbol of the quadrant Q = {x > 0, p > 0}
+// for every s in the interval s:
+//
+//	A(s) = (1 + tanh(pi s))/2,  D(s) = 0,  B(s) = (i/2pi) J(s),
+//	J(s) = (1/2) [digamma(3/4 + is/2) - digamma(1/4 + is/2)],
+//
+// the last being the closed form of J(s) = sum_n (-1)^n/(n + 1/2 + is) =
+// int_0^1 r^{-1/2+is}/(1+r) dr (split the alternating sum into even and odd
+// n and use digamma(z) = -gamma + sum_n [1/(n+1) - 1/(n+z)]).
+func Quadrant[T interval.Real[T]](s T) Symbol[T] {
+	pi := s.Pi()
+	a := interval.Tanh(pi.Mul(s)).Add(s.Int(1)).Scale(-1)
+	j := quadrantJ(s)
+	// B = (i/2pi) J = (-Im J + i Re J)/(2 pi).
+	twoPi := pi.Scale(1)
+	b := interval.C[T]{Re: j.Im.Neg().Quo(twoPi), Im: j.Re.Quo(twoPi)}
+	return Symbol[T]{A: a, D: s.Int(0), B: b}
+}
+
+// quadrantJ encloses J(s) for every s in the interval.
+func quadrantJ[T interval.Real[T]](s T) interval.C[T] {
+	half := s.Scale(-1)
+	z1 := interval.C[T]{Re: s.Frac(3, 4), Im: half}
+	z2 := interval.C[T]{Re: s.Frac(1, 4), Im: half}
+	return interval.Digamma(z1).Sub(interval.Digamma(z2)).Scale(-1)
+}
+
+// quadrantJPrime encloses J'(s) = (i/4) [trigamma(3/4 + is/2) - trigamma(1/4 + is/2)].
+func quadrantJPrime[T interval.Real[T]](s T) interval.C[T] {
+	half := s.Scale(-1)
+	z1 := interval.C[T]{Re: s.Frac(3, 4), Im: half}
+	z2 := interval.C[T]{Re: s.Frac(1, 4), Im: half}
+	d := interval.Trigamma(z1).Sub(interval.Trigamma(z2)).Scale(-2)
+	return interval.C[T]{Re: d.Im.Neg(), Im: d.Re}
+}
+
+// QuadrantEig encloses lambda(s) for every s in the interval, with lambda the
+// smallest (edge Lower) or largest (edge Upper) eigenvalue of the quadrant
+// symbol, by the mean-value form lambda(X) in lambda(c) + lambda'(X)(X - c)
+// with c the midpoint of X. Its width is of order |lambda'| w + lambda” w^2
+// for a cell of width w, so it is tight near an extremum; it falls back to
+// the direct enclosure when the mean-value form is not finite.
+func QuadrantEig[T interval.Real[T]](s T, e Edge) T {
+	c := s.Mid()
+	v := Quadrant(c).Eig(e)
+	d := quadrantEigPrime(s, e)
+	mv := v.Add(d.Mul(s.Sub(c)))
+	if !mv.IsFinite() {
+		return Quadrant(s).Eig(e)
+	}
+	return mv
+}
+
+// quadrantEigPrime encloses lambda'(s) over the interval s, where
+// lambda = A/2 -/+ R, R = sqrt(A^2/4 + beta), beta = |J|^2/(4 pi^2):
+// lambda' = A'/2 -/+ (A A'/2 + beta')/(2R), A' = (pi/2) sech^2(pi s),
+// beta' = 2 Re(conj(J) J')/(4 pi^2).
+func quadrantEigPrime[T interval.Real[T]](s T, e Edge) T {
+	pi := s.Pi()
+	a := interval.Tanh(pi.Mul(s)).Add(s.Int(1)).Scale(-1)
+	ap := interval.Sech(pi.Mul(s)).Sqr().Mul(pi).Scale(-1)
+	j := quadrantJ(s)
+	jp := quadrantJPrime(s)
+	fourPi2 := pi.Sqr().Scale(2)
+	beta := j.Abs2().Quo(fourPi2)
+	betap := j.Re.Mul(jp.Re).Add(j.Im.Mul(jp.Im)).Scale(1).Quo(fourPi2)
+	r := a.Sqr().Scale(-2).Add(beta).Sqrt()
+	rp := a.Mul(ap).Scale(-1).Add(betap).Quo(r.Scale(1))
+	if e == Upper {
+		return ap.Scale(-1).Add(rp)
+	}
+	return ap.Scale(-1).Sub(rp)
+}
+
+// QuadrantTail bounds the quadrant symbol for |s| >= S, S > 0:
+// |B(s)| <= 1/(8 |1/2 + i s|) <= 1/(8 S), and A(s) lies in
+// [(1 + tanh(pi S))/2, 1] for s >= S and in [0, (1 - tanh(pi S))/2] for
+// s <= -S.
+//
+// Lemma (|J(s)| <= pi/(4 |1/2 + is|)). With a = 1/2 + is,
+// J = int_0^1 r^{a-1}/(1+r) dr; integrating r^{a-1} by parts gives
+// J = 1/(2a) + (1/a) int_0^1 r^a/(1+r)^2 dr, and |r^a| = r^{1/2}, while
+// int_0^1 r^{1/2}/(1+r)^2 dr = pi/4 - 1/2 (substitute r = t^2). Hence
+// |J| <= (1/2 + pi/4 - 1/2)/|a| = pi/(4|a|), and |B| = |J|/(2 pi) <= 1/(8|a|).
+func QuadrantTail[T interval.Real[T]](S T, side int) (a T, bmax T) {
+	bmax = S.Int(1).Quo(S.Scale(3))
+	t := interval.Tanh(S.Pi().Mul(S))
+	one := S.Int(1)
+	if side > 0 {
+		return one.Add(t).Scale(-1).Hull(one), bmax
+	}
+	return one.Sub(t).Scale(-1).Hull(S.Int(0)), bmax
+}
+
+// TailSymbol encloses the symbol of g = chi_Q + sum_j w_j h_j for every s
+// with side*s >= S (S >= 1): A from QuadrantTail, D in [-dm, dm] and both
+// parts of B in [-bm, bm], where dm = sum |w_j| dmax_j and
+// bm = 1/(8S) + sum |w_j| bmax_j from the terms' tail lemmas.
+func TailSymbol[T interval.Real[T]](S T, side int, terms []Term[T], weights []T) Symbol[T] {
+	a, bm := QuadrantTail(S, side)
+	dm := S.Int(0)
+	for i, t := range terms {
+		d, b := t.Tail(S, side)
+		w := weights[i].Abs()
+		dm = dm.Add(w.Mul(d))
+		bm = bm.Add(w.Mul(b))
+	}
+	box := dm.Neg().Hull(dm)
+	bbox := bm.Neg().Hull(bm)
+	return Symbol[T]{A: a, D: box, B: interval.C[T]{Re: bbox, Im: bbox}}
+}
+
+// Relaxation is the symbol of g = chi_Q + sum_j w_j h_j.
+type Relaxation[T interval.Real[T]] struct {
+	Terms   []Term[T]
+	Weights []T
+}
+
+// Enclose encloses M(s) for every s in the interval s.
+func (r Relaxation[T]) Enclose(s T) Symbol[T] {
+	m := Quadrant(s)
+	for i, t := range r.Terms {
+		m = m.Add(t.Enclose(s).Scaled(r.Weights[i]))
+	}
+	return m
+}
+
+// Tail encloses M(s) for every s with side*s >= S.
+func (r Relaxation[T]) Tail(S T, side int) Symbol[T] {
+	return TailSymbol(S, side, r.Terms, r.Weights)
+}
