@@ -5,6 +5,7 @@ import (
 	"math/big"
 	"math/cmplx"
 	"math/rand"
+	"os"
 	"strings"
 	"testing"
 )
@@ -47,24 +48,27 @@ func toB[T Real[T]](x T) B {
 	if l == nil {
 		return wholeB(53)
 	}
-	return B{prec: 1200}.Between(l, h)
+	return B{prec: max(1200, x.Prec()+64)}.Between(l, h)
 }
 
-// relWidthBits returns log2((hi - lo)/|mid|) of x (-inf for a point).
+// relWidthBits returns log2((hi - lo)/|mid|) of x (-inf for a point, +inf
+// for a finite x around 0), without leaving the big.Float exponent range.
 func relWidthBits(x B) float64 {
 	l, h := x.Endpoints()
 	w := new(big.Float).Sub(h, l)
-	if w.Sign() == 0 {
-		return math.Inf(-1)
-	}
 	m := new(big.Float).Add(h, l)
 	m.Abs(m).SetMantExp(m, -1)
-	wf, _ := w.Float64()
-	mf, _ := m.Float64()
-	if mf == 0 {
+	switch {
+	case w.Sign() == 0:
+		return math.Inf(-1)
+	case m.Sign() == 0:
 		return math.Inf(1)
 	}
-	return math.Log2(wf) - math.Log2(mf)
+	wm, mm := new(big.Float), new(big.Float)
+	we, me := w.MantExp(wm), m.MantExp(mm)
+	wf, _ := wm.Float64()
+	mf, _ := mm.Float64()
+	return math.Log2(wf) - math.Log2(mf) + float64(we-me)
 }
 
 // checkConst asserts that got (at prec bits) contains the published
@@ -379,9 +383,14 @@ func TestDigammaRandomPoints(t *testing.T) {
 		if !(C[B]{toB(f.Re), toB(f.Im)}).Contains(hi) {
 			t.Errorf("psi(%v): F enclosure %v misses %v", z, f, hi)
 		}
-		// Independent float64 evaluation within 1e-12 relative.
-		if d := distToRect(digammaFloat(z), mid); d > 1e-12*(1+cmplx.Abs(digammaFloat(z))) {
-			t.Errorf("psi(%v): float64 value %v is %g away from %v", z, digammaFloat(z), d, mid)
+		// The value of an independent float64 evaluation lies in the F
+		// enclosure, and within 1e-12 relative of the 128-bit one.
+		v := digammaFloat(z)
+		if !f.Re.Contains(PointF(real(v))) || !f.Im.Contains(PointF(imag(v))) {
+			t.Errorf("psi(%v): float64 value %v outside the F enclosure %v", z, v, f)
+		}
+		if d := distToRect(v, mid); d > 1e-12*(1+cmplx.Abs(v)) {
+			t.Errorf("psi(%v): float64 value %v is %g away from %v", z, v, d, mid)
 		}
 	}
 }
@@ -495,3 +504,29 @@ func TestGammaDomain(t *testing.T) {
 		t.Errorf("psi(-1/2) = %v, want %v", d, e)
 	}
 }
+
+func TestGammaHighPrecision(t *testing.T) {
+	// Identities at precisions beyond the published digits: Gauss's
+	// digamma theorem (DLMF 5.4.15) at 1/4: psi(1/4) = -gamma - pi/2 - 3 ln 2;
+	// the trigamma reflection (DLMF 5.15.6) at 1/4 with psi'(1/4) = pi^2 + 8G:
+	// psi'(3/4) = pi^2 - 8G; and Gamma(1/2) = sqrt(pi) (DLMF 5.4.6). Each side
+	// is an independent evaluation (different shifts and series lengths).
+	precs := []uint{600, 1700}
+	if slowTests() {
+		precs = append(precs, 3400, 7000)
+	}
+	for _, p := range precs {
+		q := B{prec: p}
+		g := EulerGamma(q)
+		pi := q.Pi()
+		want := g.Add(pi.Scale(-1)).Add(q.Ln2().Mul(q.Int(3))).Neg()
+		checkConst(t, "psi(1/4)", Digamma(RealC(q.Frac(1, 4))).Re, toB(want), p, 12)
+		want = pi.Sqr().Sub(Catalan(q).Scale(3))
+		checkConst(t, "psi'(3/4)", Trigamma(RealC(q.Frac(3, 4))).Re, toB(want), p, 12)
+		l := LogGamma(RealC(q.Frac(1, 2))).Re
+		checkConst(t, "lnGamma(1/2)", l, toB(Log(pi).Scale(-1)), p, 12)
+	}
+}
+
+// slowTests reports whether WEDGEBOUND_SLOW=1 asks for the long checks.
+func slowTests() bool { return os.Getenv("WEDGEBOUND_SLOW") == "1" }
