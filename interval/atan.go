@@ -1,5 +1,7 @@
 package interval
 
+import "math"
+
 // atanSteps is the number of halvings x -> x/(1+sqrt(1+x^2)) (each halves
 // atan exactly) before the Taylor series.
 func atanSteps(p uint, fixed bool) int {
@@ -67,20 +69,19 @@ func atanKernel[T Real[T]](x T, s int) T {
 	if !x2.Less(x.Frac(1, 2)) {
 		return x.Whole()
 	}
+	lr := log2Mag(x)
+	n := seriesLen(x.Prec(), func(n int) float64 { return 2*float64(n)*lr - math.Log2(float64(2*n+1)) })
 	sum, pw := x, x
-	tol := tolerance(x, x.Prec())
-	for n := int64(1); ; n++ {
-		if n > maxTerms {
-			return x.Whole()
+	for k := int64(1); k < n; k++ {
+		pw = pw.Mul(x2)
+		if k%2 == 1 {
+			sum = sum.Sub(pw.Quo(x.Int(2*k + 1)))
+		} else {
+			sum = sum.Add(pw.Quo(x.Int(2*k + 1)))
 		}
-		pw = pw.Mul(x2).Neg()
-		term := pw.Quo(x.Int(2*n + 1))
-		if term.Abs().Less(tol) {
-			sum = sum.Pad(term.Scale(1))
-			break
-		}
-		sum = sum.Add(term)
 	}
+	term := pw.Mul(x2).Quo(x.Int(2*n + 1)) // |T_n|, the first omitted term
+	sum = sum.Pad(term.Scale(1))
 	return sum.Scale(s)
 }
 

@@ -152,10 +152,30 @@ func (x B) Quo(y B) B {
 	if x.whole || y.whole || y.l().Sign() <= 0 && y.h().Sign() >= 0 {
 		return wholeB(p)
 	}
+	// y = [c, d] does not contain zero; the sign cases pick the two
+	// quotients that are the extremes (two divisions instead of eight).
 	a, b, c, d := x.l(), x.h(), y.l(), y.h()
-	lo := minF(dn(p).Quo(a, c), dn(p).Quo(a, d), dn(p).Quo(b, c), dn(p).Quo(b, d))
-	hi := maxF(upf(p).Quo(a, c), upf(p).Quo(a, d), upf(p).Quo(b, c), upf(p).Quo(b, d))
-	return mkB(lo, hi, p)
+	var ln, ld, hn, hd *big.Float // lower = ln/ld, upper = hn/hd
+	if c.Sign() > 0 {
+		switch {
+		case a.Sign() >= 0:
+			ln, ld, hn, hd = a, d, b, c
+		case b.Sign() <= 0:
+			ln, ld, hn, hd = a, c, b, d
+		default:
+			ln, ld, hn, hd = a, c, b, c
+		}
+	} else {
+		switch {
+		case a.Sign() >= 0:
+			ln, ld, hn, hd = b, d, a, c
+		case b.Sign() <= 0:
+			ln, ld, hn, hd = b, c, a, d
+		default:
+			ln, ld, hn, hd = b, d, a, d
+		}
+	}
+	return mkB(dn(p).Quo(ln, ld), upf(p).Quo(hn, hd), p)
 }
 
 // Neg returns -x exactly.
@@ -298,8 +318,7 @@ func (x B) Lo() float64 {
 	if x.whole {
 		return math.Inf(-1)
 	}
-	v, _ := dn(53).Set(x.l()).Float64()
-	return v
+	return float64Down(x.l())
 }
 
 // Hi returns the upper endpoint rounded up to float64 (+Inf for Whole).
@@ -307,8 +326,27 @@ func (x B) Hi() float64 {
 	if x.whole {
 		return math.Inf(1)
 	}
-	v, _ := upf(53).Set(x.h()).Float64()
-	return v
+	return float64Up(x.h())
+}
+
+// float64Down and float64Up round v to a float64 below / above it.
+// big.Float.Float64 rounds to nearest in the subnormal range, gives 0 below
+// it and +-Inf above the range regardless of direction, so the result is
+// checked against v and moved one step when it is on the wrong side.
+func float64Down(v *big.Float) float64 {
+	f, _ := dn(53).Set(v).Float64()
+	if math.IsInf(f, 1) || !math.IsInf(f, -1) && new(big.Float).SetFloat64(f).Cmp(v) > 0 {
+		f = math.Nextafter(f, math.Inf(-1))
+	}
+	return f
+}
+
+func float64Up(v *big.Float) float64 {
+	f, _ := upf(53).Set(v).Float64()
+	if math.IsInf(f, -1) || !math.IsInf(f, 1) && new(big.Float).SetFloat64(f).Cmp(v) < 0 {
+		f = math.Nextafter(f, math.Inf(1))
+	}
+	return f
 }
 
 // Endpoints returns copies of the exact endpoints; nil, nil for Whole.
@@ -343,8 +381,7 @@ func (x B) Rad() float64 {
 		return math.Inf(1)
 	}
 	d := upf(64).Sub(x.h(), x.l())
-	v, _ := upf(53).SetMantExp(d, -1).Float64()
-	return v
+	return float64Up(upf(53).SetMantExp(d, -1))
 }
 
 // Prec returns the working precision in bits.

@@ -65,14 +65,30 @@ func isZero[T Real[T]](x T) bool {
 	return x.Contains(z) && z.Contains(x)
 }
 
-// tolerance returns the threshold below which a series term is dropped: the
-// magnitude of first scaled by 2^-(bits+3), but at least 2^-(2 bits + 64) so
-// that a zero argument stops at once. Only the loop length depends on it; the
-// bound added for the dropped tail is always computed from the actual term.
-func tolerance[T Real[T]](first T, bits uint) T {
-	floor := first.Int(1).Scale(-int(2*bits + 64))
-	return first.Abs().Scale(-int(bits + 3)).Max(floor)
+// seriesLen returns the index n >= 1 of the first omitted term of a series:
+// the smallest n with logTerm(n) < -(bits+4), where logTerm(n) estimates
+// log2 |T_n / T_0| in float64. Only the amount of work depends on this
+// estimate; the bound added for the omitted tail is always computed in
+// interval arithmetic from the actual term T_n, so it is rigorous whatever
+// n is. At most maxTerms.
+func seriesLen(bits uint, logTerm func(n int) float64) int64 {
+	target := -float64(bits) - 4
+	for n := 1; n < maxTerms; n++ {
+		if logTerm(n) < target {
+			return int64(n)
+		}
+	}
+	return maxTerms
 }
+
+// log2Fact returns an estimate of log2(n!).
+func log2Fact(n int) float64 {
+	v, _ := math.Lgamma(float64(n) + 1)
+	return v / math.Ln2
+}
+
+// log2Mag returns log2 of the float64 upper bound of |x| (-Inf for 0).
+func log2Mag[T Real[T]](x T) float64 { return math.Log2(x.Abs().Hi()) }
 
 // clip intersects x with [lo, hi]; valid only when the exact values are known
 // to lie in [lo, hi] (for example sin in [-1, 1]).

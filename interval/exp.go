@@ -86,19 +86,15 @@ func expKernel[T Real[T]](r T, s int) T {
 	// Taylor: sum_{n>=0} h^n/n!. For |h| <= 1 and n >= 1 the ratio of
 	// consecutive tail terms is |h|/(m+1) <= 1/2, so the tail from T_n on is
 	// at most 2|T_n|; T_n is enclosed as an interval over all h in r.
+	lr := log2Mag(h)
+	n := seriesLen(r.Prec(), func(n int) float64 { return float64(n)*lr - log2Fact(n) })
 	sum, term := one, one
-	tol := tolerance(one, r.Prec())
-	for n := int64(1); ; n++ {
-		if n > maxTerms {
-			return r.Whole()
-		}
-		term = term.Mul(h).Quo(r.Int(n))
-		if term.Abs().Less(tol) {
-			sum = sum.Pad(term.Scale(1))
-			break
-		}
+	for k := int64(1); k < n; k++ {
+		term = term.Mul(h).Quo(r.Int(k))
 		sum = sum.Add(term)
 	}
+	term = term.Mul(h).Quo(r.Int(n)) // T_n, the first omitted term
+	sum = sum.Pad(term.Scale(1))
 	for i := 0; i < s; i++ {
 		sum = sum.Sqr()
 	}
@@ -137,19 +133,17 @@ func expm1Thin[T Real[T]](a T) T {
 	s := expSteps(p, isFixed(a))
 	w := withPrec(a, work(p, s+20, 0))
 	h := w.Scale(-s)
+	// Terms T_n = h^n/n! for n >= 1; the tail from T_n (n >= 2) on is at
+	// most 2|T_n| because the term ratio |h|/(m+1) is below 1/2.
+	lr := log2Mag(h)
+	n := seriesLen(w.Prec(), func(n int) float64 { return float64(n)*lr - log2Fact(n+1) }) + 1
 	sum, term := h, h
-	tol := tolerance(h, w.Prec())
-	for n := int64(2); ; n++ {
-		if n > maxTerms {
-			return a.Whole()
-		}
-		term = term.Mul(h).Quo(w.Int(n))
-		if term.Abs().Less(tol) {
-			sum = sum.Pad(term.Scale(1))
-			break
-		}
+	for k := int64(2); k < n; k++ {
+		term = term.Mul(h).Quo(w.Int(k))
 		sum = sum.Add(term)
 	}
+	term = term.Mul(h).Quo(w.Int(n))
+	sum = sum.Pad(term.Scale(1))
 	two := w.Int(2)
 	for i := 0; i < s; i++ {
 		sum = sum.Mul(sum.Add(two))

@@ -116,19 +116,14 @@ func log1pKernel[T Real[T]](x T, s int) T {
 	if !t2.Less(x.Frac(1, 2)) {
 		return x.Whole()
 	}
+	lr := log2Mag(t)
+	n := seriesLen(x.Prec(), func(n int) float64 { return 2*float64(n)*lr - math.Log2(float64(2*n+1)) })
 	sum, pw := t, t
-	tol := tolerance(t, x.Prec())
-	for n := int64(1); ; n++ {
-		if n > maxTerms {
-			return x.Whole()
-		}
+	for k := int64(1); k < n; k++ {
 		pw = pw.Mul(t2)
-		term := pw.Quo(x.Int(2*n + 1))
-		if term.Abs().Less(tol) {
-			sum = sum.Pad(term.Scale(1))
-			break
-		}
-		sum = sum.Add(term)
+		sum = sum.Add(pw.Quo(x.Int(2*k + 1)))
 	}
+	term := pw.Mul(t2).Quo(x.Int(2*n + 1)) // T_n, the first omitted term
+	sum = sum.Pad(term.Scale(1))
 	return sum.Scale(s + 1)
 }

@@ -113,34 +113,27 @@ func sinCosKernel[T Real[T]](r T, s int) (T, T) {
 	h2 := h.Sqr()
 	bits := r.Prec()
 
+	lr := log2Mag(h)
+	// sin: T_n = (-1)^n h^(2n+1)/(2n+1)!, relative size h^(2n)/(2n+1)!.
+	n := seriesLen(bits, func(n int) float64 { return 2*float64(n)*lr - log2Fact(2*n+1) })
 	sn, term := h, h
-	tol := tolerance(h, bits)
-	for n := int64(1); ; n++ {
-		if n > maxTerms {
-			return unitInterval(r), unitInterval(r)
-		}
-		term = term.Mul(h2).Quo(r.Int((2 * n) * (2*n + 1))).Neg()
-		if term.Abs().Less(tol) {
-			sn = sn.Pad(term.Scale(1))
-			break
-		}
+	for k := int64(1); k < n; k++ {
+		term = term.Mul(h2).Quo(r.Int((2 * k) * (2*k + 1))).Neg()
 		sn = sn.Add(term)
 	}
+	term = term.Mul(h2).Quo(r.Int((2 * n) * (2*n + 1)))
+	sn = sn.Pad(term.Scale(1))
 
+	// cos: T_n = (-1)^n h^(2n)/(2n)!.
+	n = seriesLen(bits, func(n int) float64 { return 2*float64(n)*lr - log2Fact(2*n) })
 	cs := one
 	term = one
-	tol = tolerance(one, bits)
-	for n := int64(1); ; n++ {
-		if n > maxTerms {
-			return unitInterval(r), unitInterval(r)
-		}
-		term = term.Mul(h2).Quo(r.Int((2*n - 1) * (2 * n))).Neg()
-		if term.Abs().Less(tol) {
-			cs = cs.Pad(term.Scale(1))
-			break
-		}
+	for k := int64(1); k < n; k++ {
+		term = term.Mul(h2).Quo(r.Int((2*k - 1) * (2 * k))).Neg()
 		cs = cs.Add(term)
 	}
+	term = term.Mul(h2).Quo(r.Int((2*n - 1) * (2 * n)))
+	cs = cs.Pad(term.Scale(1))
 
 	for i := 0; i < s; i++ {
 		sn, cs = sn.Mul(cs).Scale(1), one.Sub(sn.Sqr().Scale(1))
