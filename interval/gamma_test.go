@@ -99,10 +99,13 @@ func checkConst[T Real[T]](t *testing.T, name string, got T, want B, prec uint, 
 var gammaPrecs = []uint{53, 64, 100, 128, 200, 256, 320}
 
 // fSlack is the relative-width allowance for F results: F widens every
-// operation by one ulp on each side, and the recurrence and series take a
-// few hundred operations, so F results are a few hundred ulps wide (about
-// 2^-44 relative, measured) instead of the 2^-43 allowed here.
-const fSlack = 10
+// operation by one ulp on each side and cannot carry guard bits, and the
+// recurrence and series take a few hundred operations, so F results are
+// 2^-42 to 2^-47 relative (measured: psi(1) 2^-44.9, psi(1/2) 2^-46.0,
+// ln Gamma(1/2) 2^-42.3 after cancelling ln Gamma(z+s) against the shift
+// logarithms); 2^(12-53) is allowed. B results, with 32 guard bits, come out
+// within about one ulp of the requested precision.
+const fSlack = 12
 
 func TestBernoulliNumbers(t *testing.T) {
 	// NIST DLMF Table 24.2.1: B_0 .. B_20.
