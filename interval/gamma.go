@@ -43,9 +43,10 @@ func LogGamma[T Real[T]](z C[T]) C[T] { return gammaFamily(z, 0) }
 
 // Digamma encloses psi(z) = Gamma'(z)/Gamma(z) for every z in the
 // rectangle. Domain: every rectangle that avoids the poles 0, -1, -2, ...;
-// for Re z <= 0 the recurrence simply runs longer. A rectangle containing a
-// pole (or too close to one to separate it at the working precision), or
-// one with Re z below -10^7, gives Whole parts.
+// for Re z <= 0 the recurrence simply runs longer (cost linear in -Re z). A
+// rectangle containing a pole (or too close to one to separate it at the
+// working precision), one with Re z below -10^7, or one whose corners leave
+// the float64 range gives Whole parts.
 func Digamma[T Real[T]](z C[T]) C[T] { return gammaFamily(z, 1) }
 
 // Trigamma encloses psi'(z) for every z in the rectangle, with the same
