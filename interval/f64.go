@@ -214,9 +214,8 @@ func (F) Decimal(s string) (F, error) {
 	if !ok {
 		return wholeF, fmt.Errorf("interval: %q is not a decimal number", s)
 	}
-	lo, _ := new(big.Float).SetPrec(53).SetMode(big.ToNegativeInf).SetRat(r).Float64()
-	hi, _ := new(big.Float).SetPrec(53).SetMode(big.ToPositiveInf).SetRat(r).Float64()
-	return F{lo, hi}, nil
+	return F{float64Down(new(big.Float).SetPrec(53).SetMode(big.ToNegativeInf).SetRat(r)),
+		float64Up(new(big.Float).SetPrec(53).SetMode(big.ToPositiveInf).SetRat(r))}, nil
 }
 
 // Between returns the hull of the exact values lo and hi rounded outward.
@@ -224,12 +223,10 @@ func (F) Between(lo, hi *big.Float) F {
 	if lo == nil || hi == nil || lo.IsInf() || hi.IsInf() {
 		return wholeF
 	}
-	l, _ := new(big.Float).SetPrec(53).SetMode(big.ToNegativeInf).Set(lo).Float64()
-	h, _ := new(big.Float).SetPrec(53).SetMode(big.ToPositiveInf).Set(hi).Float64()
-	if l > h {
-		l, h = h, l
+	if lo.Cmp(hi) > 0 {
+		lo, hi = hi, lo
 	}
-	return F{l, h}
+	return F{float64Down(lo), float64Up(hi)}
 }
 
 // Pi encloses pi.
