@@ -533,3 +533,27 @@ func TestGammaHighPrecision(t *testing.T) {
 
 // slowTests reports whether WEDGEBOUND_SLOW=1 asks for the long checks.
 func slowTests() bool { return os.Getenv("WEDGEBOUND_SLOW") == "1" }
+
+func TestJRealPart(t *testing.T) {
+	// J(s) = int_0^1 r^(a-1)/(1+r) dr with a = 1/2 + is (MATH.md section 3),
+	// and J(s) + J(-s) = int_0^inf r^(a-1)/(1+r) dr = Gamma(a) Gamma(1-a) =
+	// pi / sin(pi a) = pi / cosh(pi s) (DLMF 5.12.3 with 5.5.3). Since
+	// J(-s) = conj J(s), Re J(s) = pi / (2 cosh(pi s)). Checked through the
+	// digamma form J(s) = (psi((3/2 + is)/2) - psi((1/2 + is)/2))/2.
+	for _, p := range []uint{53, 128, 256} {
+		for _, s := range []float64{0.3, -1.75, 5, -17, -300} {
+			j := Digamma(cB(0.75, s/2, p)).Sub(Digamma(cB(0.25, s/2, p))).Scale(-1)
+			q := B{prec: 3 * p}
+			want := q.Pi().Scale(-1).Quo(Cosh(q.Pi().Mul(q.Float(s))))
+			if math.Abs(s) > 2 {
+				// Re J cancels to pi e^(-pi|s|): check inclusion and the
+				// absolute width (the digamma values are of size ln|s|).
+				if !j.Re.Contains(want) || j.Re.Rad() > math.Ldexp(1, 8-int(p)) {
+					t.Errorf("Re J(%v) at %d bits = %v, want %v", s, p, j.Re, want)
+				}
+				continue
+			}
+			checkConst(t, "Re J(s)", j.Re, want, p, 16)
+		}
+	}
+}
