@@ -295,9 +295,9 @@ func cxSqrtPoint[T Real[T]](x, y T) (re, im T) {
 	return re, u
 }
 
-// Pow encloses the principal power z^w = exp(w log z). Where log z is not
-// enclosed (z touching 0 or the branch cut) the corresponding parts are
-// Whole; use Sqrt for w = 1/2 across the cut.
+// Pow encloses the principal power z^w = exp(w log z) over both
+// rectangles. Where log z is not enclosed (z touching 0 or the branch cut)
+// both parts are Whole; use Sqrt for w = 1/2 across the cut.
 func (z C[T]) Pow(w C[T]) C[T] {
 	l := z.Log()
 	if !l.IsFinite() {
