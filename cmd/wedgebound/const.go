@@ -23,6 +23,10 @@ var constants = map[string]func(prec uint) interval.B{
 	"pi":  func(p uint) interval.B { return interval.NewB(0, p).Pi() },
 	"e":   func(p uint) interval.B { return interval.E(interval.NewB(0, p)) },
 	"ln2": func(p uint) interval.B { return interval.NewB(0, p).Ln2() },
+	// Catalan's constant G and Euler's constant gamma (package interval, from
+	// the trigamma and digamma functions).
+	"catalan": func(p uint) interval.B { return interval.Catalan(interval.NewB(0, p)) },
+	"gamma":   func(p uint) interval.B { return interval.EulerGamma(interval.NewB(0, p)) },
 }
 
 // constDigitsMax bounds --digits (the decimal output is capped there too).

@@ -93,3 +93,32 @@ func TestConstHumanAndErrors(t *testing.T) {
 		}
 	}
 }
+
+// Catalan's constant and Euler's gamma through the subcommand: the bounds
+// bracket the OEIS data-line digits (A006752: 0.91596559417721901505...,
+// A001620: 0.57721566490153286060...; 105 and 99 digits).
+func TestConstCatalanGamma(t *testing.T) {
+	for _, c := range []struct{ name, digits string }{
+		{"catalan", "0.915965594177219015054603514932384110774149374281672134266498119621763019776254769479356512926115106248574"},
+		{"gamma", "0.577215664901532860606512090082402431042159335939923598805767234884867726777664670936947063291746749"},
+	} {
+		var out, errb bytes.Buffer
+		if code := dispatch([]string{"const", c.name, "--digits", "120", "--json"}, &out, &errb); code != 0 {
+			t.Fatalf("%s: exit %d: %s", c.name, code, errb.String())
+		}
+		var r struct{ Lower, Upper string }
+		if err := json.Unmarshal(out.Bytes(), &r); err != nil {
+			t.Fatal(err)
+		}
+		lo, _ := new(big.Rat).SetString(r.Lower)
+		hi, _ := new(big.Rat).SetString(r.Upper)
+		v, _ := new(big.Rat).SetString(c.digits)
+		u := new(big.Rat).SetFrac(big.NewInt(1), new(big.Int).Exp(big.NewInt(10), big.NewInt(int64(len(c.digits)-2)), nil))
+		if lo.Cmp(new(big.Rat).Add(v, u)) > 0 || hi.Cmp(v) < 0 {
+			t.Errorf("%s: [%s, %s] misses the OEIS digits", c.name, r.Lower, r.Upper)
+		}
+		if w := new(big.Rat).Sub(hi, lo); w.Cmp(big.NewRat(1, 1)) >= 0 || len(r.Lower) < 120 {
+			t.Errorf("%s: bounds too wide or too short: %s %s", c.name, r.Lower, r.Upper)
+		}
+	}
+}
