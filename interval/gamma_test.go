@@ -557,3 +557,24 @@ func TestJRealPart(t *testing.T) {
 		}
 	}
 }
+
+func TestGammaConcurrent(t *testing.T) {
+	// The Bernoulli, coefficient and plan caches grow under concurrent use
+	// (run with -race); every goroutine must get the same enclosure.
+	want := Digamma(cB(0.3, 0.7, 211))
+	done := make(chan C[B])
+	for g := 0; g < 4; g++ {
+		go func(g int) {
+			for p := uint(300 + 37*g); p < 700; p += 97 {
+				Trigamma(cB(0.3, 0.7, p))
+				LogGamma(cB(1.5, -2, p))
+			}
+			done <- Digamma(cB(0.3, 0.7, 211))
+		}(g)
+	}
+	for g := 0; g < 4; g++ {
+		if got := <-done; !got.Contains(want) || !want.Contains(got) {
+			t.Errorf("concurrent digamma %v differs from %v", got, want)
+		}
+	}
+}
