@@ -155,5 +155,6 @@ func printStrip(w io.Writer, r *strip.Result) {
 	fmt.Fprintf(w, "advantage A(alpha) = -lambda_min in [%s, %s]\n", r.Advantage.Lower, r.Advantage.Upper)
 	fmt.Fprintf(w, "deficit lambda_max in [%s, %s]\n", r.Deficit.Lower, r.Deficit.Upper)
 	fmt.Fprintf(w, "(basis size %d, %d Gauss nodes per variable)\n", r.BasisSize, r.QuadratureNodes)
-	fmt.Fprintf(w, "Meaning: a quantum particle confined to a region of length L reaches the target within time t with a probability that exceeds that of every classical particle with the same momentum distribution by at most the advantage's upper end (the witness state achieves at least its lower end), and falls short of it by at most the deficit's upper end.\n")
+	fmt.Fprintf(w, "Meaning: some state of a quantum particle confined to a region of length L reaches the target within time t with a probability at least %s above that of the best classical particle with the same momentum distribution, no state beats it by more than %s, and no state falls short of it by more than %s (some by at least %s).\n",
+		r.Advantage.Lower, r.Advantage.Upper, r.Deficit.Upper, r.Deficit.Lower)
 }
