@@ -3,6 +3,7 @@ package interval
 import (
 	"math"
 	"math/big"
+	"sync"
 )
 
 // This file holds the machinery shared by the elementary functions: working
@@ -138,4 +139,55 @@ func fromB[T Real[T]](w T, b B) T {
 		return w.Whole()
 	}
 	return w.Between(l, h)
+}
+
+// cwConst splits a constant c = hi + lo (Cody and Waite's two-part
+// constant): hi is a float64 with at most 30 significant bits, lo an F
+// enclosure of c - hi. It lets F reduce v - k c with the error of one
+// rounding of the small remainder instead of one ulp of k c.
+type cwConst struct {
+	once sync.Once
+	get  func(B) B
+	hi   float64
+	lo   F
+}
+
+func (c *cwConst) init() {
+	c.once.Do(func() {
+		b := c.get(B{prec: 256})
+		f, _ := b.Mid().lo.Float64()
+		c.hi = math.Float64frombits(math.Float64bits(f) &^ (1<<23 - 1)) // keep 53-23 = 30 bits
+		l, h := b.Sub(B{prec: 256}.Float(c.hi)).Endpoints()
+		c.lo = F{}.Between(l, h)
+	})
+}
+
+var (
+	cwHalfPi = cwConst{get: halfPi}
+	cwLn2    = cwConst{get: B.Ln2}
+)
+
+// reduceF encloses v - k c in F. k c.hi is exact (k has at most 22 bits and
+// c.hi 30) and v - k c.hi is exact when the TwoSum error term vanishes; both
+// facts are checked at run time, and false is returned when either fails
+// (the caller then reduces in B).
+func (c *cwConst) reduceF(v float64, k int64) (F, bool) {
+	c.init()
+	if k == 0 {
+		return PointF(v), true
+	}
+	if k > 1<<22 || k < -(1<<22) {
+		return F{}, false
+	}
+	kf := float64(k)
+	y := kf * c.hi
+	if math.FMA(kf, c.hi, -y) != 0 {
+		return F{}, false
+	}
+	d := v - y
+	bb := d - v
+	if e := (v - (d - bb)) + (-y - bb); e != 0 { // TwoSum (Knuth): d is exact iff e == 0
+		return F{}, false
+	}
+	return PointF(d).Sub(PointF(kf).Mul(c.lo)), true
 }

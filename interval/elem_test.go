@@ -570,3 +570,40 @@ func TestWidthShrinks(t *testing.T) {
 		}
 	}
 }
+
+// The two-part constants used by F's argument reduction: the high part has
+// at most 30 significant bits, high + low encloses the constant, and the
+// reduction encloses the exact v - k c (checked at 400 bits).
+func TestCodyWaiteReduction(t *testing.T) {
+	rng := rand.New(rand.NewSource(5))
+	for name, c := range map[string]*cwConst{"pi/2": &cwHalfPi, "ln2": &cwLn2} {
+		c.init()
+		if math.Float64bits(c.hi)&(1<<23-1) != 0 {
+			t.Errorf("%s: high part %v has more than 30 bits", name, c.hi)
+		}
+		z := NewB(0, 400)
+		l, h := c.lo.Endpoints()
+		sum := z.Float(c.hi).Add(z.Between(l, h))
+		if !sum.Contains(c.get(z)) {
+			t.Errorf("%s: %v + %v misses the constant", name, c.hi, c.lo)
+		}
+		for i := 0; i < 500; i++ {
+			k := int64(rng.Intn(1<<22)) - 1<<21
+			if i < 100 {
+				k = int64(rng.Intn(2000) - 1000)
+			}
+			v := float64(k)*c.hi + (rng.Float64()-0.5)*1.6
+			r, ok := c.reduceF(v, k)
+			if !ok {
+				continue
+			}
+			exact := z.Float(v).Sub(z.Int(k).Mul(c.get(z)))
+			if rl, rh := r.Endpoints(); !z.Between(rl, rh).Contains(exact) {
+				t.Errorf("%s: reduce(%g, %d) = %v misses %v", name, v, k, r, exact)
+			}
+			if rb := toF(exact); !overlaps(r, rb) || r.Rad() > 8*math.Abs(rb.Hi())*0x1p-52+1e-300 {
+				t.Errorf("%s: reduce(%g, %d) = %v, exact %v", name, v, k, r, exact)
+			}
+		}
+	}
+}

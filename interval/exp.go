@@ -58,14 +58,17 @@ func expThin[T Real[T]](a T) T {
 	k := int64(math.Round(v / math.Ln2))
 	w := withPrec(a, work(p, s+20, bitLen64(k)))
 	var r T
-	if k == 0 {
+	if f, ok := any(a).(F); ok {
+		// F: a two-part ln 2 keeps r accurate; B if its checks fail.
+		if rf, ok := cwLn2.reduceF(f.lo, k); ok {
+			r = any(rf).(T)
+		} else {
+			r = fromB(w, reduceB(bigLo(a), big.NewInt(k), B.Ln2, 53+64+uint(bitLen64(k))))
+		}
+	} else if k == 0 {
 		r = w
-	} else if !fixed || (k >= -24 && k <= 24) {
-		r = w.Sub(w.Int(k).Mul(w.Ln2()))
 	} else {
-		// F with a large multiple: reduce in B so that r keeps full accuracy.
-		rb := reduceB(bigLo(a), big.NewInt(k), B.Ln2, 53+64+uint(bitLen64(k)))
-		r = fromB(w, rb)
+		r = w.Sub(w.Int(k).Mul(w.Ln2()))
 	}
 	e := expKernel(r, s)
 	e = e.Scale(int(k))

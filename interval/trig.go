@@ -70,8 +70,13 @@ func sinCosThin[T Real[T]](a T) (T, T) {
 		}
 		kb := k.BitLen()
 		w = withPrec(a, work(p, s+20, kb))
-		if fixed && kb <= 5 {
-			r = w.Sub(w.Int(k.Int64()).Mul(w.Pi().Scale(-1)))
+		var rf F
+		ok = false
+		if f, isF := any(a).(F); isF && kb <= 22 {
+			rf, ok = cwHalfPi.reduceF(f.lo, k.Int64())
+		}
+		if ok {
+			r = any(rf).(T)
 		} else {
 			rp := w.Prec()
 			if fixed {
