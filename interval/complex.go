@@ -151,7 +151,7 @@ func atanNarrow[T Real[T]](q T) T {
 		return q.Whole()
 	}
 	m := q.Mid()
-	e := q.Sub(m).Abs().Quo(q.Int(1).Add(Lower(q.Sqr())))
+	e := q.Sub(m).Abs().Quo(q.Int(1).Add(lowerPt(q.Sqr())))
 	return Atan(m).Pad(e)
 }
 
@@ -163,7 +163,7 @@ func logNarrow[T Real[T]](x T) T {
 		return Log(x)
 	}
 	m := x.Mid()
-	return Log(m).Pad(x.Sub(m).Abs().Quo(Lower(x)))
+	return Log(m).Pad(x.Sub(m).Abs().Quo(lowerPt(x)))
 }
 
 // log1pNarrow is logNarrow for log1p on an interval t > -1.
@@ -173,7 +173,7 @@ func log1pNarrow[T Real[T]](t T) T {
 		return Log1p(t)
 	}
 	m := t.Mid()
-	return Log1p(m).Pad(t.Sub(m).Abs().Quo(one.Add(Lower(t))))
+	return Log1p(m).Pad(t.Sub(m).Abs().Quo(one.Add(lowerPt(t))))
 }
 
 // Exp encloses e^z = e^a (cos b + i sin b) over the rectangle; a part is
@@ -194,7 +194,7 @@ func expNarrow[T Real[T]](x T) T {
 		return Exp(x)
 	}
 	m := x.Mid()
-	r := Upper(x.Sub(m).Abs())
+	r := upperPt(x.Sub(m).Abs())
 	one := x.Int(1)
 	f := one.Sub(r).Hull(one.Add(r).Add(r.Sqr()))
 	return Exp(m).Mul(f)
@@ -209,7 +209,7 @@ func sinCosNarrow[T Real[T]](x T) (sin, cos T) {
 		return SinCos(x)
 	}
 	m := x.Mid()
-	r := Upper(x.Sub(m).Abs())
+	r := upperPt(x.Sub(m).Abs())
 	one := x.Int(1)
 	s, c := SinCos(m)
 	es := r.Mul(c.Abs().Add(r).Min(one))
@@ -252,12 +252,12 @@ func (z C[T]) Sqrt() C[T] {
 	if !z.IsFinite() {
 		return C[T]{z.Re.Whole(), z.Re.Whole()}
 	}
-	xl, xh := Lower(z.Re), Upper(z.Re)
-	yl, yh := Lower(z.Im), Upper(z.Im)
+	xl, xh := lowerPt(z.Re), upperPt(z.Re)
+	yl, yh := lowerPt(z.Im), upperPt(z.Im)
 	// Real part: min at (x.lo, y nearest 0), max at (x.hi, y farthest from 0).
 	ay := z.Im.Abs()
-	reLo, _ := cxSqrtPoint(xl, Lower(ay))
-	reHi, _ := cxSqrtPoint(xh, Upper(ay))
+	reLo, _ := cxSqrtPoint(xl, lowerPt(ay))
+	reHi, _ := cxSqrtPoint(xh, upperPt(ay))
 	// Imaginary part: max at y.hi (x.lo if y.hi >= 0 else x.hi), min at
 	// y.lo (x.hi if y.lo >= 0 else x.lo).
 	var imHi, imLo T

@@ -118,9 +118,23 @@ func gammaWidthClass[T Real[T]](z C[T], p uint) int {
 	return 1
 }
 
-// widthExp returns e with 2^(e-1) <= hi - lo < 2^e, MinInt for a point
-// and MaxInt for an unbounded x.
+// widthExp returns e with 2^(e-1) <= hi - lo < 2^e (up to one unit for
+// F), MinInt for a point and MaxInt for an unbounded x.
 func widthExp[T Real[T]](x T) int {
+	if f, ok := any(x).(F); ok {
+		if !f.IsFinite() {
+			return math.MaxInt
+		}
+		if f.lo == f.hi {
+			return math.MinInt
+		}
+		d := f.hi - f.lo
+		if math.IsInf(d, 0) {
+			return math.MaxInt
+		}
+		_, e := math.Frexp(d)
+		return e + 1 // the float64 difference may have rounded down
+	}
 	l, h := x.Endpoints()
 	if l == nil {
 		return math.MaxInt
@@ -135,6 +149,17 @@ func widthExp[T Real[T]](x T) int {
 // magExp returns e with max(|lo|, |hi|) < 2^e (MinInt for the point 0,
 // MaxInt for an unbounded x).
 func magExp[T Real[T]](x T) int {
+	if f, ok := any(x).(F); ok {
+		if !f.IsFinite() {
+			return math.MaxInt
+		}
+		m := math.Max(math.Abs(f.lo), math.Abs(f.hi))
+		if m == 0 {
+			return math.MinInt
+		}
+		_, e := math.Frexp(m)
+		return e
+	}
 	l, h := x.Endpoints()
 	if l == nil {
 		return math.MaxInt
@@ -147,6 +172,21 @@ func magExp[T Real[T]](x T) int {
 		e = max(e, h.MantExp(nil))
 	}
 	return e
+}
+
+// lowerPt and upperPt are Lower and Upper with a fast path for F.
+func lowerPt[T Real[T]](x T) T {
+	if f, ok := any(x).(F); ok && f.IsFinite() {
+		return any(PointF(f.lo)).(T)
+	}
+	return Lower(x)
+}
+
+func upperPt[T Real[T]](x T) T {
+	if f, ok := any(x).(F); ok && f.IsFinite() {
+		return any(PointF(f.hi)).(T)
+	}
+	return Upper(x)
 }
 
 // gammaCore evaluates order j directly on the rectangle z (at z's
@@ -205,8 +245,8 @@ func stirlingAsym[T Real[T]](z C[T], j, n int) C[T] {
 	case 3: // -1/z^2 - 1/z^3 + S/z^2
 		f = u.Add(u.Mul(r)).Neg().Add(u.Mul(s))
 	}
-	rl := Lower(z.Abs())
-	xl := Lower(x)
+	rl := lowerPt(z.Abs())
+	xl := lowerPt(x)
 	if xl.Sign() <= 0 {
 		return wholeC(x)
 	}
