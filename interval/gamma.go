@@ -53,8 +53,8 @@ func Digamma[T Real[T]](z C[T]) C[T] { return gammaFamily(z, 1) }
 // domain and Whole results as Digamma.
 func Trigamma[T Real[T]](z C[T]) C[T] { return gammaFamily(z, 2) }
 
-// Tetragamma encloses psi”(z) for every z in the rectangle, with the same
-// domain and Whole results as Digamma.
+// Tetragamma encloses the second derivative of psi for every z in the
+// rectangle, with the same domain and Whole results as Digamma.
 func Tetragamma[T Real[T]](z C[T]) C[T] { return gammaFamily(z, 3) }
 
 func wholeC[T Real[T]](x T) C[T] { w := x.Whole(); return C[T]{w, w} }
@@ -236,7 +236,7 @@ func stirlingAsym[T Real[T]](z C[T], j, n int) C[T] {
 	var f C[T]
 	switch j {
 	case 0: // (z - 1/2) ln z - z + ln(2 pi)/2 + z S
-		l2pi := Log(x.Pi().Scale(1)).Scale(-1)
+		l2pi := fromB(x, halfLog2PiCache.get(x.Prec()+8))
 		f = z.AddReal(x.Frac(-1, 2)).Mul(z.Log()).Sub(z).AddReal(l2pi).Add(z.Mul(s))
 	case 1: // ln z - 1/(2z) + S
 		f = z.Log().Sub(r.Scale(-1)).Add(s)
@@ -375,6 +375,9 @@ func logProductBranch[T Real[T]](z C[T], s int, p C[T]) (C[T], bool) {
 }
 
 var (
+	halfLog2PiCache = constCache{calc: func(p uint) B {
+		return Log(NewB(0, p).Pi().Scale(1)).Scale(-1)
+	}}
 	catalanCache = constCache{calc: func(p uint) B {
 		q := NewB(0.25, p)
 		t := Trigamma(RealC(q)).Re
