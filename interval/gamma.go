@@ -16,7 +16,7 @@ import (
 //	ln Gamma(z)     = ln Gamma(z + s) - sum_{k<s} ln(z + k),
 //	psi(z)          = psi(z + s)  - sum_{k<s} 1/(z + k),
 //	psi'(z)         = psi'(z + s) + sum_{k<s} 1/(z + k)^2,
-//	psi''(z)        = psi''(z + s) - 2 sum_{k<s} 1/(z + k)^3.
+//	psi^(2)(z)      = psi^(2)(z + s) - 2 sum_{k<s} 1/(z + k)^3.
 //
 // A rectangle wider than a few units in the last place is handled in the
 // centred (mean value) form f(Z) in f(z0) + f'(Z) (Z - z0), with z0 the
