@@ -8,7 +8,8 @@ func atanSteps(p uint, fixed bool) int {
 	if fixed {
 		return 2
 	}
-	s := int(isqrt(p/2)) - 2
+	// A halving costs about six series terms (square root and division).
+	s := int(0.3*math.Sqrt(float64(p))) - 2
 	if s < 2 {
 		s = 2
 	}

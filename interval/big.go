@@ -228,34 +228,41 @@ func (x B) Sqrt() B {
 }
 
 // sqrtDirected returns sqrt(v) for v >= 0 rounded to p bits toward +inf
-// (up) or -inf. big.Float.Sqrt does not promise correct directed rounding
-// (it rounds an approximation), so the candidate is checked by squaring it
-// exactly (2p bits hold the product) and moved by one ulp until it is on the
-// required side.
+// (up) or -inf. big.Float.Sqrt does not promise correct rounding, and it is
+// not even accurate to p bits at every precision (its Newton iteration from a
+// float64 start can stop short: at 3355 bits it is off by about 2^90 ulps),
+// so the root is taken at extra bits, rounded in the required direction, and
+// checked by squaring it exactly (2p+2 bits hold the product); it is moved
+// one ulp outward while the check fails, and the extra bits are doubled if
+// that does not settle it.
 func sqrtDirected(v *big.Float, p uint, up bool) *big.Float {
 	if v.Sign() == 0 {
 		return new(big.Float)
 	}
-	var r *big.Float
-	if up {
-		r = upf(p).Sqrt(v)
-	} else {
-		r = dn(p).Sqrt(v)
-	}
-	for i := 0; i < 64; i++ {
-		sq := new(big.Float).SetPrec(2*p+2).Mul(r, r) // exact
-		c := sq.Cmp(v)
-		if up && c >= 0 || !up && c <= 0 {
-			return r
-		}
-		ulp := new(big.Float).SetMantExp(big.NewFloat(1), r.MantExp(nil)-int(p))
+	for extra := p/16 + 64; ; extra *= 2 {
+		c := new(big.Float).SetPrec(p + extra).Sqrt(v)
+		var r *big.Float
 		if up {
-			r = upf(p).Add(r, ulp)
+			r = upf(p).Set(c)
 		} else {
-			r = dn(p).Sub(r, ulp)
+			r = dn(p).Set(c)
+		}
+		for i := 0; i < 4; i++ {
+			sq := new(big.Float).SetPrec(2*p+2).Mul(r, r) // exact
+			if c := sq.Cmp(v); up && c >= 0 || !up && c <= 0 {
+				return r
+			}
+			ulp := new(big.Float).SetMantExp(big.NewFloat(1), r.MantExp(nil)-int(p))
+			if up {
+				r = upf(p).Add(r, ulp)
+			} else {
+				r = dn(p).Sub(r, ulp)
+			}
+		}
+		if extra > 1<<20 {
+			panic("interval: square root correction did not converge")
 		}
 	}
-	panic("interval: square root correction did not converge")
 }
 
 // Scale returns x * 2^k, exactly unless the exponent range of math/big is

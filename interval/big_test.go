@@ -175,6 +175,16 @@ func TestBSqrtDirected(t *testing.T) {
 			check(new(big.Float).SetPrec(p).Sub(sq, ulp), p)
 		}
 	}
+	// Precisions where big.Float.Sqrt falls short of p correct bits (its
+	// Newton iteration stops early), found while testing Log at 3355 bits.
+	for _, p := range []uint{3355, 3360, 6700, 13500, 27000} {
+		for i := 0; i < 5; i++ {
+			v := randBig(rng, p)
+			v.Abs(v)
+			check(v, p)
+		}
+		check(new(big.Float).SetPrec(p).Quo(big.NewFloat(4), big.NewFloat(3)), p)
+	}
 	// Exact squares come out as points.
 	if s := NewB(4, 200).Sqrt(); ratOf(s.lo).Cmp(big.NewRat(2, 1)) != 0 || ratOf(s.hi).Cmp(big.NewRat(2, 1)) != 0 {
 		t.Errorf("sqrt 4 = %v", s)

@@ -11,7 +11,9 @@ func logSteps(p uint, fixed bool) int {
 	if fixed {
 		return 2
 	}
-	s := int(isqrt(p/2)) - 2
+	// A halving costs about six series terms (it needs a square root and a
+	// division), which puts the balance near 0.3 sqrt(p) - 2.
+	s := int(0.3*math.Sqrt(float64(p))) - 2
 	if s < 1 {
 		s = 1
 	}

@@ -11,7 +11,11 @@ func trigSteps(p uint, fixed bool) int {
 	if fixed {
 		return 2
 	}
-	return int(isqrt(p))
+	s := int(0.65 * math.Sqrt(float64(p)))
+	if s < 2 {
+		s = 2
+	}
+	return s
 }
 
 func unitInterval[T Real[T]](x T) T { return x.Int(-1).Hull(x.Int(1)) }
