@@ -132,6 +132,9 @@ func reduceB(v *big.Float, k *big.Int, c func(B) B, prec uint) B {
 	return z.Between(v, v).Sub(z.Between(kf, kf).Mul(c(z)))
 }
 
+// toFB converts a B enclosure to F (outward).
+func toFB(b B) F { return fromB(F{}, b) }
+
 // fromB converts the B enclosure b to T at w's precision (outward).
 func fromB[T Real[T]](w T, b B) T {
 	l, h := b.Endpoints()

@@ -63,9 +63,18 @@ func sinCosThin[T Real[T]](a T) (T, T) {
 	s := trigSteps(p, fixed)
 	var w, r T
 	q := 0
-	if math.Abs(a.Lo()) < 0.78 {
+	if av := math.Abs(a.Lo()); av < 0.78 {
 		w = withPrec(a, work(p, s+20, 0))
 		r = w
+	} else if f, isF := any(a).(F); isF && av < 1e6 {
+		// F with a moderate argument: k from float64 and the two-part
+		// pi/2, without big-number work (B only if the checks fail).
+		k := int64(math.Round(f.lo / (math.Pi / 2)))
+		rf, ok := cwHalfPi.reduceF(f.lo, k)
+		if !ok {
+			rf = toFB(reduceB(bigLo(a), big.NewInt(k), halfPi, 53+64+22))
+		}
+		w, r, q = a, any(rf).(T), int(k&3)
 	} else {
 		v := bigLo(a)
 		k, ok := halfPiMultiple(v)
