@@ -84,8 +84,9 @@ func getRule(n int, workers int) (*gaussRule, error) {
 
 // newGaussRule verifies the n-point Gauss-Legendre rule (n >= 2).
 //
-// For each positive root: a float64 Newton iterate is refined by one Newton
-// step at high precision to x~, then P_n is evaluated at x~ - d and x~ + d
+// For each positive root: a float64 Newton iterate is refined by two
+// unverified Newton steps in big.Float to x~ (aimNode), then P_n is
+// evaluated at x~ - d and x~ + d
 // (d = 2^-nodeSepBits) in interval arithmetic with enough guard bits for the
 // recurrence; a strict sign change proves a root in between. The n node
 // intervals (positive ones, their mirror images, and 0 for odd n, a root by
@@ -225,6 +226,7 @@ func (r *gaussRule) legendreValues(N int, workers int) [][]interval.F {
 				pj = p2
 			}
 			jj := int64(j)
+			// |center - root| < d + 2^-128 |x| < 2d = dist (node widths 2d).
 			pj = pj.Pad(dist.Mul(dist.Int(jj * jj)))
 			row[j] = toF(pj).Mul(interval.PointF(float64(2*j + 1)).Sqrt())
 		}
