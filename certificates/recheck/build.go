@@ -1,0 +1,200 @@
+package recheck
+
+import (
+	"errors"
+	"fmt"
+	"math/big"
+
+	"wedgebound/certificates"
+	"wedgebound/interval"
+)
+
+// BuildOptions describes a certificate for BuildCertificate.
+type BuildOptions struct {
+	Problem certificates.Problem
+	Terms   []certificates.Term
+	// Bound is the claimed bound (decimal).
+	Bound string
+	// Lo and Hi are the ends of the cover (Lo < 0 < Hi, decimals).
+	Lo, Hi string
+	// Cells is the number of equal initial cells (default 32); each is
+	// bisected until its enclosure supports the claim.
+	Cells int
+	// MaxCells stops the construction (default 20000).
+	MaxCells int
+}
+
+// BuildCertificate is a small reference certifier on the verifier's own
+// numerics, for tests and worked examples (the project's certifier is a
+// separate program): it covers [Lo, Hi] with cells whose enclosures
+// support the claim, closes the cover with the tail lemma of Model.Tail and
+// seals the result. It fails when the claim cannot be supported that way.
+func BuildCertificate(o BuildOptions) (*certificates.Certificate, error) {
+	nf, err := Recompute(o.Problem)
+	if err != nil {
+		return nil, err
+	}
+	edge := Edge(o.Problem.Edge)
+	m, err := NewModel(interval.F{}, edge, o.Terms)
+	if err != nil {
+		return nil, err
+	}
+	bound, err := certificates.Dec(o.Bound, "bound")
+	if err != nil {
+		return nil, err
+	}
+	lo, err := certificates.Dec(o.Lo, "lo")
+	if err != nil {
+		return nil, err
+	}
+	hi, err := certificates.Dec(o.Hi, "hi")
+	if err != nil {
+		return nil, err
+	}
+	if lo.Sign() >= 0 || hi.Sign() <= 0 {
+		return nil, errors.New("the cover must contain 0 in its interior")
+	}
+	thr := new(big.Float).SetPrec(200).SetRat(bound)
+	if edge == Lower {
+		thr.Neg(thr)
+	}
+	okEnc := func(x interval.F) bool {
+		l, h := x.Endpoints()
+		if l == nil {
+			return false
+		}
+		if edge == Lower {
+			return l.Cmp(thr) >= 0
+		}
+		return h.Cmp(thr) <= 0
+	}
+	n0 := o.Cells
+	if n0 <= 0 {
+		n0 = 32
+	}
+	maxCells := o.MaxCells
+	if maxCells <= 0 {
+		maxCells = 20000
+	}
+	width := new(big.Rat).Sub(hi, lo)
+	var grid []*big.Rat
+	for i := 0; i <= n0; i++ {
+		g := new(big.Rat).Add(lo, new(big.Rat).Mul(width, big.NewRat(int64(i), int64(n0))))
+		grid = append(grid, g)
+	}
+	var cells []certificates.Cell
+	half := big.NewRat(1, 2)
+	for i := range n0 {
+		for _, pc := range Pieces(grid[i], grid[i+1]) {
+			stack := [][2]*big.Rat{pc}
+			for len(stack) > 0 {
+				p := stack[len(stack)-1]
+				stack = stack[:len(stack)-1]
+				r, err := m.Piece(p[0], p[1])
+				if err != nil {
+					return nil, err
+				}
+				if !okEnc(r.Eig) {
+					if len(cells)+len(stack) > maxCells {
+						return nil, fmt.Errorf("the claim %s needs more than %d cells (last tried [%s, %s], enclosure %v)", o.Bound, maxCells, p[0].RatString(), p[1].RatString(), r.Eig)
+					}
+					mid := new(big.Rat).Add(p[0], p[1])
+					mid.Mul(mid, half)
+					stack = append(stack, [2]*big.Rat{mid, p[1]}, [2]*big.Rat{p[0], mid})
+					continue
+				}
+				el, eu, err := interval.Decimals(r.Eig, 12)
+				if err != nil {
+					return nil, err
+				}
+				cells = append(cells, certificates.Cell{Lo: ratText(p[0]), Hi: ratText(p[1]), EigLower: el, EigUpper: eu})
+			}
+		}
+	}
+	tails := make([]certificates.Tail, 2)
+	for i, side := range []int{-1, 1} {
+		from := lo
+		if side > 0 {
+			from = hi
+		}
+		enc, err := m.Tail(from, side)
+		if err != nil {
+			return nil, err
+		}
+		if !okEnc(enc) {
+			return nil, fmt.Errorf("the tail lemma at s = %s does not support the claim (%v)", from.RatString(), enc)
+		}
+		l, h, err := interval.Decimals(enc, 12)
+		if err != nil {
+			return nil, err
+		}
+		b := l
+		if edge == Upper {
+			b = h
+		}
+		tails[i] = certificates.Tail{From: ratText(from), Bound: b, Lemma: "recheck tail lemma (quadrant |J| <= pi/(4|a|), exp terms C(k)/|a|, monotone corner)"}
+	}
+	normal := certificates.NormalForm{A: nf.A.RatString(), B: nf.B.RatString(), D: nf.D.RatString(), Threshold: NoThreshold}
+	for i := range 4 {
+		normal.Map[i] = nf.Map[i].RatString()
+	}
+	if nf.Threshold != nil {
+		normal.Threshold = nf.Threshold.RatString()
+	}
+	stmt := fmt.Sprintf("lambda_min(M(s)) >= -%s for every real s", o.Bound)
+	if edge == Upper {
+		stmt = fmt.Sprintf("lambda_max(M(s)) <= %s for every real s", o.Bound)
+	}
+	c := &certificates.Certificate{
+		Kind: certificates.KindRelaxation,
+		Relaxation: &certificates.Relaxation{
+			Problem:       o.Problem,
+			Normal:        normal,
+			Terms:         o.Terms,
+			Claim:         certificates.Claim{Edge: o.Problem.Edge, Bound: o.Bound, Statement: stmt},
+			PrecisionBits: 53,
+			Cover:         cells,
+			Below:         tails[0],
+			Above:         tails[1],
+			Budget:        m.budget(),
+		},
+	}
+	if err := certificates.Seal(c); err != nil {
+		return nil, err
+	}
+	return c, nil
+}
+
+// ratText writes r as an exact decimal when it terminates, else as p/q
+// (which certificates.Dec rejects, so callers use terminating values).
+func ratText(r *big.Rat) string {
+	for d := 0; d <= 60; d++ {
+		s := r.FloatString(d)
+		if t, ok := new(big.Rat).SetString(s); ok && t.Cmp(r) == 0 {
+			return s
+		}
+	}
+	return r.RatString()
+}
+
+// budget returns the largest quadrature and truncation terms added to any
+// B entry so far (errQ and errT of a regime scaled by |w|/(pi |k+2i|));
+// the tail lemmas and rounding add no separate term (interval arithmetic
+// carries the rounding).
+func (m *Model[T]) budget() certificates.Budget {
+	q, t := m.like.Int(0), m.like.Int(0)
+	for i, e := range m.terms {
+		scale := m.weights[i].Abs().Quo(e.mod.Mul(m.like.Pi()))
+		e.mu.Lock()
+		for _, slot := range e.regimes {
+			if slot.r != nil {
+				q = q.Max(interval.Upper(slot.r.errQ.Mul(scale)))
+				t = t.Max(interval.Upper(slot.r.errT.Mul(scale)))
+			}
+		}
+		e.mu.Unlock()
+	}
+	_, qs, _ := interval.Decimals(q, 3)
+	_, ts, _ := interval.Decimals(t, 3)
+	return certificates.Budget{Quadrature: qs, Truncation: ts, Tails: "0", Rounding: "0"}
+}

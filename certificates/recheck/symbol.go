@@ -1,0 +1,244 @@
+package recheck
+
+import (
+	"errors"
+	"fmt"
+	"math/big"
+	"sort"
+	"strings"
+
+	"wedgebound/certificates"
+	"wedgebound/interval"
+)
+
+// Edge names the spectral edge a claim is about.
+type Edge string
+
+// The two edges.
+const (
+	Lower Edge = "lower"
+	Upper Edge = "upper"
+)
+
+// Model is the verifier's own description of the symbol of the relaxation
+// g = chi_Q + sum_j w_j h_j: the 2x2 Hermitian matrix
+//
+//	M(s) = [[A, B], [conj B, D]],  A = (1 + tanh(pi s))/2,
+//	B = (i/2pi) J(s) + sum_j w_j conj(M_{+-,j}(s)),  D = sum_j w_j M_{++,j}(s),
+//	J(s) = (1/2)[digamma(3/4 + is/2) - digamma(1/4 + is/2)],
+//
+// (MATH.md section 3; J is the closed form of sum_n (-1)^n/(n + 1/2 + is),
+// obtained by splitting the alternating sum into even and odd n).
+type Model[T interval.Real[T]] struct {
+	Edge    Edge
+	like    T
+	terms   []*expTerm[T]
+	weights []T
+	wRat    []*big.Rat
+}
+
+// TermKinds lists the profile families the verifier knows.
+func TermKinds() []string { return []string{"exp"} }
+
+// ErrUnknownKind is wrapped by the error for a term of an unknown family.
+var ErrUnknownKind = errors.New("unknown term kind")
+
+// NewModel builds the model at the precision of like. It rejects unknown
+// term kinds and parameters outside the supported ranges.
+func NewModel[T interval.Real[T]](like T, edge Edge, terms []certificates.Term) (*Model[T], error) {
+	if edge != Lower && edge != Upper {
+		return nil, fmt.Errorf("edge must be %q or %q, not %q", Lower, Upper, edge)
+	}
+	m := &Model[T]{Edge: edge, like: like.Int(0)}
+	for i, t := range terms {
+		switch t.Kind {
+		case "exp":
+			e, err := newExpTerm(like, t.Params)
+			if err != nil {
+				return nil, fmt.Errorf("terms[%d]: %v", i, err)
+			}
+			m.terms = append(m.terms, e)
+		default:
+			known := TermKinds()
+			sort.Strings(known)
+			return nil, fmt.Errorf("terms[%d]: %w %q (this verifier knows: %s)", i, ErrUnknownKind, t.Kind, strings.Join(known, ", "))
+		}
+		w, err := certificates.Dec(t.Weight, fmt.Sprintf("terms[%d].weight", i))
+		if err != nil {
+			return nil, err
+		}
+		wt, err := like.Decimal(w.String())
+		if err != nil {
+			return nil, err
+		}
+		m.weights = append(m.weights, wt)
+		m.wRat = append(m.wRat, w)
+	}
+	return m, nil
+}
+
+// TermStart returns the infimum of xp over the support of term i's
+// profile: 0 for "exp" (e^{-k u} > 0 for every u > 0).
+func (m *Model[T]) TermStart(i int) *big.Rat { return new(big.Rat) }
+
+// entries is an enclosure of (A, D, B) over a set of s.
+type entries[T interval.Real[T]] struct {
+	A, D T
+	B    interval.C[T]
+}
+
+// eig encloses lambda_min = (A+D)/2 - sqrt(((A-D)/2)^2 + |B|^2) (edge
+// lower) or lambda_max (+) for every Hermitian matrix with entries in e.
+func (e entries[T]) eig(edge Edge) T {
+	h := e.A.Add(e.D).Scale(-1)
+	g := e.A.Sub(e.D).Scale(-1)
+	r := g.Sqr().Add(e.B.Abs2()).Sqrt()
+	if edge == Upper {
+		return h.Add(r)
+	}
+	return h.Sub(r)
+}
+
+// eigDeriv encloses d lambda/ds = h' -+ (g g' + Re(conj(B) B'))/R with
+// h = (A+D)/2, g = (A-D)/2, R = sqrt(g^2 + |B|^2), given enclosures of the
+// entries (v) and their derivatives (d) over a cell; Whole when R may
+// vanish there (lambda need not be differentiable then).
+func eigDeriv[T interval.Real[T]](v, d entries[T], edge Edge) T {
+	g := v.A.Sub(v.D).Scale(-1)
+	r := g.Sqr().Add(v.B.Abs2()).Sqrt()
+	if r.Sign() <= 0 {
+		return r.Whole()
+	}
+	hp := d.A.Add(d.D).Scale(-1)
+	gp := d.A.Sub(d.D).Scale(-1)
+	num := g.Mul(gp).Add(v.B.Re.Mul(d.B.Re)).Add(v.B.Im.Mul(d.B.Im))
+	if edge == Upper {
+		return hp.Add(num.Quo(r))
+	}
+	return hp.Sub(num.Quo(r))
+}
+
+// quadJ encloses J(s) for every s in S.
+func quadJ[T interval.Real[T]](S T) interval.C[T] {
+	h := S.Scale(-1)
+	z1 := interval.C[T]{Re: S.Frac(3, 4), Im: h}
+	z2 := interval.C[T]{Re: S.Frac(1, 4), Im: h}
+	return interval.Digamma(z1).Sub(interval.Digamma(z2)).Scale(-1)
+}
+
+// quadJDeriv encloses J'(s) = (i/4)[trigamma(3/4 + is/2) - trigamma(1/4 + is/2)].
+func quadJDeriv[T interval.Real[T]](S T) interval.C[T] {
+	h := S.Scale(-1)
+	z1 := interval.C[T]{Re: S.Frac(3, 4), Im: h}
+	z2 := interval.C[T]{Re: S.Frac(1, 4), Im: h}
+	d := interval.Trigamma(z1).Sub(interval.Trigamma(z2)).Scale(-2)
+	return interval.C[T]{Re: d.Im.Neg(), Im: d.Re}
+}
+
+// quadB returns (i/2pi) J.
+func quadB[T interval.Real[T]](J interval.C[T]) interval.C[T] {
+	tp := J.Re.Pi().Scale(1)
+	return interval.C[T]{Re: J.Im.Neg().Quo(tp), Im: J.Re.Quo(tp)}
+}
+
+// quadA encloses A(s) = (1 + tanh(pi s))/2 and A'(s) = (pi/2) sech^2(pi s).
+func quadA[T interval.Real[T]](S T) (T, T) {
+	ps := S.Pi().Mul(S)
+	a := interval.Tanh(ps).Add(S.Int(1)).Scale(-1)
+	ap := interval.Sech(ps).Sqr().Mul(S.Pi()).Scale(-1)
+	return a, ap
+}
+
+// meet intersects two enclosures of the same quantity; if they are
+// disjoint (which only a defect can cause) it returns their hull.
+func meet[T interval.Real[T]](x, y T) T {
+	if !x.IsFinite() {
+		return y
+	}
+	if !y.IsFinite() {
+		return x
+	}
+	lo := interval.Lower(x.Max(y))
+	hi := interval.Upper(x.Min(y))
+	if hi.Less(lo) {
+		return x.Hull(y)
+	}
+	return lo.Hull(hi)
+}
+
+// PieceResult is the verifier's enclosure on one piece of a cell.
+type PieceResult[T interval.Real[T]] struct {
+	// Eig encloses the edge eigenvalue for every s of the piece.
+	Eig T
+	// Mid encloses it at the point Mid of the piece (a point of the piece).
+	Mid   T
+	MidAt T
+}
+
+// Piece encloses the edge eigenvalue over the exact piece [a, b], which
+// must lie within one regime (see Pieces).
+//
+// Method: with c a point of the piece and delta >= |s - c| on it,
+// lambda(s) in lambda(c) + lambda'(S) [-delta, delta] (mean value theorem;
+// lambda is differentiable wherever R > 0, which eigDeriv checks), and
+// this is intersected with the direct evaluation of lambda from the
+// entries over the piece. The entries over the piece come from their
+// values at c and enclosures of their derivatives (integral form of the
+// mean value theorem, valid for complex values because the enclosures are
+// convex rectangles) or, for A and D, from their closed forms.
+func (m *Model[T]) Piece(a, b *big.Rat) (PieceResult[T], error) {
+	like := m.like
+	idx, ok := regimeIndex(a, b)
+	if !ok {
+		return PieceResult[T]{}, fmt.Errorf("piece [%s, %s] crosses a regime boundary or lies beyond |s| = 2^30", a.RatString(), b.RatString())
+	}
+	lo, _ := like.Decimal(a.String())
+	hi, _ := like.Decimal(b.String())
+	S := lo.Hull(hi)
+	c := S.Mid()
+	delta := interval.Upper(S.Sub(c).Abs())
+	dInt := delta.Neg().Hull(delta)
+
+	// Quadrant entries.
+	Ac, _ := quadA(c)
+	AS, dAS := quadA(S)
+	Jc := quadJ(c)
+	dJS := quadJDeriv(S)
+	JS := Jc.Add(dJS.MulReal(dInt))
+	pt := entries[T]{A: Ac, D: like.Int(0), B: quadB(Jc)}
+	cell := entries[T]{A: AS, D: like.Int(0), B: quadB(JS)}
+	der := entries[T]{A: dAS, D: like.Int(0), B: quadB(dJS)}
+	for i, t := range m.terms {
+		reg, err := t.regime(idx)
+		if err != nil {
+			return PieceResult[T]{}, err
+		}
+		w := m.weights[i]
+		ev := t.evalI(reg, c, S, delta)
+		pt.D = pt.D.Add(w.Mul(t.mpp(c)))
+		pt.B = pt.B.Add(t.bFromI(ev.Ic).MulReal(w))
+		mS := t.mpp(S)
+		cell.D = cell.D.Add(w.Mul(mS))
+		der.D = der.D.Add(w.Mul(t.mppDeriv(S, mS)))
+		cell.B = cell.B.Add(t.bFromI(ev.IS).MulReal(w))
+		der.B = der.B.Add(t.bFromI(ev.dIS).MulReal(w))
+	}
+	lc := pt.eig(m.Edge)
+	direct := cell.eig(m.Edge)
+	mv := lc.Add(eigDeriv(cell, der, m.Edge).Mul(dInt))
+	return PieceResult[T]{Eig: meet(direct, mv), Mid: lc, MidAt: c}, nil
+}
+
+// Pieces splits the exact cell [a, b] at the regime boundaries (+-1, +-2,
+// +-4, ..., +-2^30) it contains in its interior.
+func Pieces(a, b *big.Rat) [][2]*big.Rat {
+	var out [][2]*big.Rat
+	cur := a
+	for _, r := range regimeBreaks() {
+		if r.Cmp(cur) > 0 && r.Cmp(b) < 0 {
+			out = append(out, [2]*big.Rat{cur, r})
+			cur = r
+		}
+	}
+	return append(out, [2]*big.Rat{cur, b})
+}

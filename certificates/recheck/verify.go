@@ -1,0 +1,648 @@
+package recheck
+
+import (
+	"errors"
+	"fmt"
+	"math/big"
+	"runtime"
+	"sort"
+	"strings"
+	"sync"
+	"time"
+
+	"wedgebound/certificates"
+	"wedgebound/interval"
+)
+
+// ErrUnsupported is wrapped by Verify's error for a certificate kind this
+// version cannot check.
+var ErrUnsupported = errors.New("not supported by this version of the verifier")
+
+// Options tunes the verification; the zero value is sensible.
+type Options struct {
+	// Workers is the number of goroutines over cells (0: GOMAXPROCS). The
+	// result does not depend on it.
+	Workers int
+	// MaxDepth bounds the bisection of one recorded cell when the first
+	// enclosure is too wide to decide the claim (0: 10, that is up to 1024
+	// pieces per cell).
+	MaxDepth int
+	// NoTailExtension forbids covering more of s beyond a recorded tail
+	// start when the verifier's tail lemma is too weak there.
+	NoTailExtension bool
+	// NoHighPrecision forbids the retry at high precision of pieces that
+	// float64 intervals cannot decide.
+	NoHighPrecision bool
+}
+
+// Failure is one claim that does not hold.
+type Failure struct {
+	// Where names the part of the certificate: "normal_form", "terms[i]",
+	// "cover[i]", "tail_below", "tail_above" or "claim".
+	Where string `json:"where"`
+	// Lo and Hi give the range of s concerned (empty when not applicable).
+	Lo string `json:"s_lo,omitempty"`
+	Hi string `json:"s_hi,omitempty"`
+	// Message explains what was found.
+	Message string `json:"message"`
+	// By is how far the failing quantity is on the wrong side, rounded
+	// outward (empty when not a number).
+	By string `json:"by,omitempty"`
+	// Refuted is true when the verifier exhibits a point where the claim is
+	// false, rather than merely failing to prove it.
+	Refuted bool `json:"refuted"`
+
+	order int
+	s     *big.Rat
+}
+
+// Result is the outcome of verifying one certificate.
+type Result struct {
+	Pass bool `json:"pass"`
+	// Edge and Problem describe the problem; Bound is the claimed bound.
+	Edge    Edge   `json:"edge"`
+	Problem string `json:"problem"`
+	Bound   string `json:"bound"`
+	// Statement is the claim in words (lower: lambda_min >= -Bound).
+	Statement string `json:"statement"`
+	// Recomputed is the verifier's own proved bound on the edge quantity
+	// over the checked range (for edge lower the largest number x with
+	// lambda_min >= -x shown; for edge upper the smallest x with
+	// lambda_max <= x), rounded outward; empty when a check failed early.
+	Recomputed string `json:"recomputed,omitempty"`
+	// Cells is the number of recorded cells, Pieces the number of pieces the
+	// verifier evaluated (after its own subdivision), HighPrecision how many
+	// of them needed big-float intervals.
+	Cells         int       `json:"cells"`
+	Pieces        int       `json:"pieces"`
+	HighPrecision int       `json:"high_precision_pieces"`
+	Range         [2]string `json:"range"`
+	Notes         []string  `json:"notes,omitempty"`
+	// Failures lists every claim found not to hold, first by position
+	// (structure, then s increasing).
+	Failures []Failure     `json:"failures,omitempty"`
+	Elapsed  time.Duration `json:"elapsed_ns"`
+}
+
+// Verify recomputes everything the claim of c rests on. It returns an error
+// (wrapping ErrUnsupported) only for a certificate kind it cannot check;
+// every failed claim is reported in the result.
+func Verify(c *certificates.Certificate, opt Options) (*Result, error) {
+	start := time.Now()
+	if c.Kind != certificates.KindRelaxation || c.Relaxation == nil {
+		return nil, fmt.Errorf("certificate kind %q is %w (it checks %q)", c.Kind, ErrUnsupported, certificates.KindRelaxation)
+	}
+	if opt.Workers <= 0 {
+		opt.Workers = runtime.GOMAXPROCS(0)
+	}
+	if opt.MaxDepth <= 0 {
+		opt.MaxDepth = 10
+	}
+	rel := c.Relaxation
+	v := &verifier{rel: rel, opt: opt, res: &Result{Edge: Edge(rel.Claim.Edge), Bound: rel.Claim.Bound, Cells: len(rel.Cover)}}
+	v.res.Problem = describe(rel.Problem)
+	v.run()
+	sort.SliceStable(v.res.Failures, func(i, j int) bool {
+		a, b := v.res.Failures[i], v.res.Failures[j]
+		if a.order != b.order {
+			return a.order < b.order
+		}
+		if a.s != nil && b.s != nil {
+			return a.s.Cmp(b.s) < 0
+		}
+		return false
+	})
+	v.res.Pass = len(v.res.Failures) == 0
+	v.res.Elapsed = time.Since(start)
+	return v.res, nil
+}
+
+type verifier struct {
+	rel   *certificates.Relaxation
+	opt   Options
+	res   *Result
+	edge  Edge
+	bound *big.Rat
+	thr   *big.Rat // the edge eigenvalue must stay >= thr (lower) or <= thr (upper)
+	mF    *Model[interval.F]
+
+	bOnce sync.Once
+	mB    *Model[interval.B]
+	bErr  error
+
+	mu    sync.Mutex
+	worst *big.Float // lowest proved lower end (lower) / highest upper end (upper)
+}
+
+const (
+	orderStructure = iota
+	orderTailBelow
+	orderCover
+	orderTailAbove
+)
+
+func (v *verifier) fail(f Failure) {
+	v.mu.Lock()
+	v.res.Failures = append(v.res.Failures, f)
+	v.mu.Unlock()
+}
+
+func (v *verifier) note(s string) {
+	v.mu.Lock()
+	v.res.Notes = append(v.res.Notes, s)
+	v.mu.Unlock()
+}
+
+func (v *verifier) run() {
+	rel := v.rel
+	v.edge = Edge(rel.Claim.Edge)
+	if v.edge != Lower && v.edge != Upper {
+		v.fail(Failure{Where: "claim", Message: fmt.Sprintf("claim.edge must be %q or %q, not %q", Lower, Upper, rel.Claim.Edge)})
+		return
+	}
+	b, err := certificates.Dec(rel.Claim.Bound, "claim.bound")
+	if err != nil {
+		v.fail(Failure{Where: "claim", Message: err.Error()})
+		return
+	}
+	v.bound = b
+	if v.edge == Lower {
+		v.thr = new(big.Rat).Neg(b)
+		v.res.Statement = fmt.Sprintf("lambda_min(M(s)) >= -%s for every real s, so inf spec P Op(chi_W) P >= -%s", rel.Claim.Bound, rel.Claim.Bound)
+	} else {
+		v.thr = new(big.Rat).Set(b)
+		v.res.Statement = fmt.Sprintf("lambda_max(M(s)) <= %s for every real s, so sup spec P Op(chi_W) P <= %s", rel.Claim.Bound, rel.Claim.Bound)
+	}
+	if rel.Problem.Edge != rel.Claim.Edge {
+		v.fail(Failure{Where: "claim", Message: fmt.Sprintf("claim.edge %q differs from problem.edge %q", rel.Claim.Edge, rel.Problem.Edge)})
+	}
+	v.res.Range = [2]string{rel.Cover[0].Lo, rel.Cover[len(rel.Cover)-1].Hi}
+
+	// Geometry and admissibility, exactly.
+	nf, err := Recompute(rel.Problem)
+	if err != nil {
+		v.fail(Failure{Where: "problem", Message: err.Error()})
+		return
+	}
+	if err := nf.Compare(rel.Normal); err != nil {
+		v.fail(Failure{Where: "normal_form", Message: err.Error()})
+	}
+	m, err := NewModel(interval.F{}, v.edge, rel.Terms)
+	if err != nil {
+		where := "terms"
+		if i := strings.Index(err.Error(), ":"); i > 0 && strings.HasPrefix(err.Error(), "terms[") {
+			where = err.Error()[:i]
+		}
+		v.fail(Failure{Where: where, Message: err.Error()})
+		return
+	}
+	v.mF = m
+	for i := range rel.Terms {
+		st := m.TermStart(i)
+		switch {
+		case nf.Threshold == nil:
+			v.fail(Failure{Where: fmt.Sprintf("terms[%d]", i), Message: "no quadrant-III profile is admissible for this problem (the vertex is inside the half-plane and a ray runs parallel to its boundary), so the relaxation does not agree with the wedge indicator on the half-plane"})
+		case st.Cmp(nf.Threshold) < 0:
+			v.fail(Failure{Where: fmt.Sprintf("terms[%d]", i), Message: fmt.Sprintf("the %q profile is nonzero from xp = %s on, but only profiles supported on xp >= %s vanish on the image half-plane; the relaxation would change the operator", rel.Terms[i].Kind, st.RatString(), nf.Threshold.RatString())})
+		}
+	}
+	if len(v.res.Failures) > 0 {
+		return
+	}
+	v.checkRecorded()
+	v.checkCells()
+	v.checkTail(-1)
+	v.checkTail(1)
+	if w := v.worst; w != nil && len(v.res.Failures) == 0 {
+		if v.edge == Lower {
+			v.res.Recomputed = interval.DecimalUp(new(big.Float).Neg(w), 8)
+		} else {
+			v.res.Recomputed = interval.DecimalUp(w, 8)
+		}
+	}
+}
+
+// checkRecorded tests the recorded numbers against the claim they are
+// supposed to support.
+func (v *verifier) checkRecorded() {
+	rel := v.rel
+	for i, c := range rel.Cover {
+		el, _ := certificates.Dec(c.EigLower, "eig_lower")
+		eu, _ := certificates.Dec(c.EigUpper, "eig_upper")
+		lo, _ := certificates.Dec(c.Lo, "lo")
+		if v.edge == Lower && el.Cmp(v.thr) < 0 {
+			v.fail(Failure{Where: fmt.Sprintf("cover[%d]", i), Lo: c.Lo, Hi: c.Hi, order: orderCover, s: lo,
+				Message: fmt.Sprintf("the recorded enclosure [%s, %s] does not support the claim: its lower end is below -%s", c.EigLower, c.EigUpper, rel.Claim.Bound),
+				By:      ratDecimal(new(big.Rat).Sub(v.thr, el))})
+		}
+		if v.edge == Upper && eu.Cmp(v.thr) > 0 {
+			v.fail(Failure{Where: fmt.Sprintf("cover[%d]", i), Lo: c.Lo, Hi: c.Hi, order: orderCover, s: lo,
+				Message: fmt.Sprintf("the recorded enclosure [%s, %s] does not support the claim: its upper end is above %s", c.EigLower, c.EigUpper, rel.Claim.Bound),
+				By:      ratDecimal(new(big.Rat).Sub(eu, v.thr))})
+		}
+	}
+	for _, t := range []struct {
+		tail  certificates.Tail
+		name  string
+		side  int
+		order int
+	}{{rel.Below, "tail_below", -1, orderTailBelow}, {rel.Above, "tail_above", 1, orderTailAbove}} {
+		tb, _ := certificates.Dec(t.tail.Bound, t.name+".bound")
+		from, _ := certificates.Dec(t.tail.From, t.name+".from")
+		lim := big.NewRat(int64(v.mF.TailLimit(t.side)), 1)
+		f := Failure{Where: t.name, Lo: t.tail.From, order: t.order, s: from}
+		if v.edge == Lower {
+			switch {
+			case tb.Cmp(v.thr) < 0:
+				f.Message = fmt.Sprintf("the recorded tail bound %s does not support the claim (it is below -%s)", t.tail.Bound, rel.Claim.Bound)
+				f.By = ratDecimal(new(big.Rat).Sub(v.thr, tb))
+				v.fail(f)
+			case tb.Cmp(lim) > 0:
+				f.Message = fmt.Sprintf("the recorded tail bound %s is false: lambda_min tends to %s as |s| grows, so it cannot stay above %s", t.tail.Bound, lim.RatString(), t.tail.Bound)
+				f.By = ratDecimal(new(big.Rat).Sub(tb, lim))
+				f.Refuted = true
+				v.fail(f)
+			}
+		} else {
+			switch {
+			case tb.Cmp(v.thr) > 0:
+				f.Message = fmt.Sprintf("the recorded tail bound %s does not support the claim (it is above %s)", t.tail.Bound, rel.Claim.Bound)
+				f.By = ratDecimal(new(big.Rat).Sub(tb, v.thr))
+				v.fail(f)
+			case tb.Cmp(lim) < 0:
+				f.Message = fmt.Sprintf("the recorded tail bound %s is false: lambda_max tends to %s there, so it cannot stay below %s", t.tail.Bound, lim.RatString(), t.tail.Bound)
+				f.By = ratDecimal(new(big.Rat).Sub(lim, tb))
+				f.Refuted = true
+				v.fail(f)
+			}
+		}
+	}
+}
+
+// modelB returns the high-precision model, built on first use.
+func (v *verifier) modelB() (*Model[interval.B], error) {
+	v.bOnce.Do(func() {
+		prec := uint(v.rel.PrecisionBits)
+		if prec < 106 {
+			prec = 106
+		}
+		if prec > 512 {
+			prec = 512
+		}
+		v.mB, v.bErr = NewModel(interval.NewB(0, prec), v.edge, v.rel.Terms)
+	})
+	return v.mB, v.bErr
+}
+
+// decide reports whether the enclosure [eLo, eHi] of the eigenvalue over a
+// piece proves the claim (ok), or the point enclosure [pLo, pHi] shows it
+// false (refuted). nil endpoints mean unbounded.
+func (v *verifier) decide(eLo, eHi, pLo, pHi *big.Float) (ok, refuted bool) {
+	thr := new(big.Float).SetPrec(200).SetRat(v.thr)
+	if v.edge == Lower {
+		return eLo != nil && eLo.Cmp(thr) >= 0, pHi != nil && pHi.Cmp(thr) < 0
+	}
+	return eHi != nil && eHi.Cmp(thr) <= 0, pLo != nil && pLo.Cmp(thr) > 0
+}
+
+// piece evaluates one piece on the float64 model, retrying on the
+// high-precision model when asked to and float64 cannot decide.
+func (v *verifier) piece(a, b *big.Rat, retry bool) (eLo, eHi, pLo, pHi, at *big.Float, high bool, err error) {
+	r, err := v.mF.Piece(a, b)
+	if err != nil {
+		return
+	}
+	eLo, eHi = r.Eig.Endpoints()
+	pLo, pHi = r.Mid.Endpoints()
+	at, _ = r.MidAt.Endpoints()
+	if ok, ref := v.decide(eLo, eHi, pLo, pHi); ok || ref || !retry || v.opt.NoHighPrecision {
+		return
+	}
+	mb, berr := v.modelB()
+	if berr != nil {
+		return
+	}
+	rb, berr := mb.Piece(a, b)
+	if berr != nil {
+		return
+	}
+	eLo, eHi = rb.Eig.Endpoints()
+	pLo, pHi = rb.Mid.Endpoints()
+	at, _ = rb.MidAt.Endpoints()
+	return eLo, eHi, pLo, pHi, at, true, nil
+}
+
+// cellResult collects the verifier's findings on one recorded cell.
+type cellResult struct {
+	lo, hi  *big.Float // hull of the piece enclosures
+	failure *Failure
+	pieces  int
+	high    int
+	worst   *big.Float
+	mids    [][2]*big.Float // point enclosures (lo, hi) at piece midpoints
+	midAt   []*big.Float
+}
+
+func (v *verifier) checkCells() {
+	rel := v.rel
+	results := make([]cellResult, len(rel.Cover))
+	jobs := make(chan int)
+	var wg sync.WaitGroup
+	for range v.opt.Workers {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			for i := range jobs {
+				lo, _ := certificates.Dec(rel.Cover[i].Lo, "lo")
+				hi, _ := certificates.Dec(rel.Cover[i].Hi, "hi")
+				results[i] = v.cell(lo, hi)
+			}
+		}()
+	}
+	for i := range rel.Cover {
+		jobs <- i
+	}
+	close(jobs)
+	wg.Wait()
+	for i, r := range results {
+		c := rel.Cover[i]
+		v.res.Pieces += r.pieces
+		v.res.HighPrecision += r.high
+		v.addWorst(r.worst)
+		lo, _ := certificates.Dec(c.Lo, "lo")
+		if r.failure != nil {
+			f := *r.failure
+			f.Where = fmt.Sprintf("cover[%d]", i)
+			f.Lo, f.Hi = c.Lo, c.Hi
+			f.order, f.s = orderCover, lo
+			v.fail(f)
+			continue
+		}
+		// The recorded enclosure must contain the true eigenvalue at every
+		// point, in particular at the piece midpoints where the verifier has
+		// tight enclosures.
+		el, _ := certificates.Dec(c.EigLower, "eig_lower")
+		eu, _ := certificates.Dec(c.EigUpper, "eig_upper")
+		elF := new(big.Float).SetPrec(200).SetRat(el)
+		euF := new(big.Float).SetPrec(200).SetRat(eu)
+		for j, m := range r.mids {
+			if m[1].Cmp(elF) < 0 || m[0].Cmp(euF) > 0 {
+				at := r.midAt[j]
+				var by *big.Float
+				if m[1].Cmp(elF) < 0 {
+					by = new(big.Float).Sub(elF, m[1])
+				} else {
+					by = new(big.Float).Sub(m[0], euF)
+				}
+				v.fail(Failure{Where: fmt.Sprintf("cover[%d]", i), Lo: c.Lo, Hi: c.Hi, order: orderCover, s: lo, Refuted: true,
+					Message: fmt.Sprintf("the recorded enclosure [%s, %s] is false: at s = %s the eigenvalue lies in [%s, %s]",
+						c.EigLower, c.EigUpper, fmtF(at, 12), interval.DecimalDown(m[0], 10), interval.DecimalUp(m[1], 10)),
+					By: interval.DecimalDown(by, 4)})
+				break
+			}
+		}
+	}
+}
+
+func (v *verifier) addWorst(w *big.Float) {
+	if w == nil {
+		return
+	}
+	v.mu.Lock()
+	defer v.mu.Unlock()
+	if v.worst == nil || (v.edge == Lower && w.Cmp(v.worst) < 0) || (v.edge == Upper && w.Cmp(v.worst) > 0) {
+		v.worst = w
+	}
+}
+
+// cell checks the claim on the exact cell [lo, hi], subdividing as needed.
+func (v *verifier) cell(lo, hi *big.Rat) cellResult {
+	var out cellResult
+	type span struct {
+		a, b  *big.Rat
+		depth int
+	}
+	var stack []span
+	ps := Pieces(lo, hi)
+	for i := len(ps) - 1; i >= 0; i-- {
+		stack = append(stack, span{ps[i][0], ps[i][1], 0})
+	}
+	half := big.NewRat(1, 2)
+	for len(stack) > 0 {
+		p := stack[len(stack)-1]
+		stack = stack[:len(stack)-1]
+		out.pieces++
+		eLo, eHi, mLo, mHi, at, high, err := v.piece(p.a, p.b, p.depth >= v.opt.MaxDepth)
+		if err != nil {
+			out.failure = &Failure{Message: err.Error()}
+			return out
+		}
+		if high {
+			out.high++
+		}
+		ok, refuted := v.decide(eLo, eHi, mLo, mHi)
+		if mLo != nil && mHi != nil {
+			out.mids = append(out.mids, [2]*big.Float{mLo, mHi})
+			out.midAt = append(out.midAt, at)
+		}
+		if refuted {
+			by := new(big.Float).SetPrec(200).SetRat(v.thr)
+			var val string
+			if v.edge == Lower {
+				by.Sub(by, mHi)
+				val = "lambda_min <= " + interval.DecimalUp(mHi, 10)
+			} else {
+				by.Sub(mLo, by)
+				val = "lambda_max >= " + interval.DecimalDown(mLo, 10)
+			}
+			out.failure = &Failure{Refuted: true, By: interval.DecimalDown(by, 4),
+				Message: fmt.Sprintf("the claim is false: at s = %s the verifier finds %s, beyond the claimed %s%s", fmtF(at, 12), val, sgn(v.edge), v.rel.Claim.Bound)}
+			return out
+		}
+		if !ok {
+			if p.depth < v.opt.MaxDepth {
+				mid := new(big.Rat).Add(p.a, p.b)
+				mid.Mul(mid, half)
+				stack = append(stack, span{mid, p.b, p.depth + 1}, span{p.a, mid, p.depth + 1})
+				continue
+			}
+			by := new(big.Float).SetPrec(200).SetRat(v.thr)
+			var msg string
+			if eLo == nil || eHi == nil {
+				msg = "the verifier's enclosure is unbounded"
+			} else if v.edge == Lower {
+				by.Sub(by, eLo)
+				msg = fmt.Sprintf("not proved: on s in [%s, %s] the verifier's enclosure of lambda_min reaches down to %s, below -%s", p.a.RatString(), p.b.RatString(), interval.DecimalDown(eLo, 10), v.rel.Claim.Bound)
+			} else {
+				by.Sub(eHi, by)
+				msg = fmt.Sprintf("not proved: on s in [%s, %s] the verifier's enclosure of lambda_max reaches up to %s, above %s", p.a.RatString(), p.b.RatString(), interval.DecimalUp(eHi, 10), v.rel.Claim.Bound)
+			}
+			f := &Failure{Message: msg}
+			if eLo != nil && eHi != nil {
+				f.By = interval.DecimalUp(by, 4)
+			}
+			out.failure = f
+			return out
+		}
+		if out.lo == nil || eLo.Cmp(out.lo) < 0 {
+			out.lo = eLo
+		}
+		if out.hi == nil || eHi.Cmp(out.hi) > 0 {
+			out.hi = eHi
+		}
+	}
+	if v.edge == Lower {
+		out.worst = out.lo
+	} else {
+		out.worst = out.hi
+	}
+	return out
+}
+
+func sgn(e Edge) string {
+	if e == Lower {
+		return "-"
+	}
+	return ""
+}
+
+// checkTail proves the claim for s beyond the recorded tail start, with
+// the verifier's own lemma (Model.Tail); when the lemma is too weak there
+// it covers [from, from * 2^j] with its own cells and applies the lemma
+// further out, up to 64 |from|.
+func (v *verifier) checkTail(side int) {
+	rel := v.rel
+	t, name, order := rel.Below, "tail_below", orderTailBelow
+	if side > 0 {
+		t, name, order = rel.Above, "tail_above", orderTailAbove
+	}
+	from, _ := certificates.Dec(t.From, name+".from")
+	if from.Sign() != side {
+		v.fail(Failure{Where: name, Lo: t.From, order: order, s: from, Message: fmt.Sprintf("%s starts at %s, on the wrong side of 0 (the cover must contain s = 0 in its interior)", name, t.From)})
+		return
+	}
+	// The recorded tail bound must hold at the tail's first point.
+	if pt, err := v.mF.Piece(from, from); err == nil {
+		tb, _ := certificates.Dec(t.Bound, name+".bound")
+		tbF := new(big.Float).SetPrec(200).SetRat(tb)
+		pl, ph := pt.Mid.Endpoints()
+		if v.edge == Lower && ph != nil && ph.Cmp(tbF) < 0 || v.edge == Upper && pl != nil && pl.Cmp(tbF) > 0 {
+			v.fail(Failure{Where: name, Lo: t.From, order: order, s: from, Refuted: true,
+				Message: fmt.Sprintf("the recorded tail bound %s is false: at s = %s the eigenvalue lies in [%s, %s]", t.Bound, t.From, interval.DecimalDown(pl, 10), interval.DecimalUp(ph, 10))})
+			return
+		}
+	}
+	cur := new(big.Rat).Set(from)
+	limit := new(big.Rat).Mul(from, big.NewRat(64, 1))
+	for {
+		enc, err := v.mF.Tail(cur, side)
+		if err != nil {
+			v.fail(Failure{Where: name, Lo: t.From, order: order, s: from, Message: err.Error()})
+			return
+		}
+		lo, hi := enc.Endpoints()
+		var ok bool
+		var end *big.Float
+		if v.edge == Lower {
+			end = lo
+		} else {
+			end = hi
+		}
+		ok, _ = v.decide(lo, hi, nil, nil)
+		if ok {
+			v.addWorst(end)
+			if cur.Cmp(from) != 0 {
+				v.note(fmt.Sprintf("%s: the verifier's tail lemma holds from s = %s; it covered [%s, %s] with its own cells", name, cur.RatString(), minRat(from, cur).RatString(), maxRat(from, cur).RatString()))
+			}
+			return
+		}
+		next := new(big.Rat).Mul(cur, big.NewRat(2, 1))
+		if v.opt.NoTailExtension || new(big.Rat).Abs(next).Cmp(new(big.Rat).Abs(limit)) > 0 {
+			thr := new(big.Float).SetPrec(200).SetRat(v.thr)
+			var by *big.Float
+			if end != nil {
+				if v.edge == Lower {
+					by = new(big.Float).Sub(thr, end)
+				} else {
+					by = new(big.Float).Sub(end, thr)
+				}
+			}
+			f := Failure{Where: name, Lo: t.From, order: order, s: from,
+				Message: fmt.Sprintf("not proved: the verifier's tail lemma at s = %s gives only %s %s, short of the claim", cur.RatString(), map[Edge]string{Lower: "lambda_min >=", Upper: "lambda_max <="}[v.edge], fmtF(end, 10))}
+			if by != nil {
+				f.By = interval.DecimalUp(by, 4)
+			}
+			v.fail(f)
+			return
+		}
+		// Cover [cur, next] (or [next, cur]) with the verifier's own cells.
+		a, b := minRat(cur, next), maxRat(cur, next)
+		const parts = 16
+		w := new(big.Rat).Quo(new(big.Rat).Sub(b, a), big.NewRat(parts, 1))
+		results := make([]cellResult, parts)
+		var wg sync.WaitGroup
+		sem := make(chan struct{}, v.opt.Workers)
+		for i := range parts {
+			wg.Add(1)
+			sem <- struct{}{}
+			go func() {
+				defer wg.Done()
+				defer func() { <-sem }()
+				lo := new(big.Rat).Add(a, new(big.Rat).Mul(w, big.NewRat(int64(i), 1)))
+				hi := new(big.Rat).Add(a, new(big.Rat).Mul(w, big.NewRat(int64(i+1), 1)))
+				if i == parts-1 {
+					hi = b
+				}
+				results[i] = v.cell(lo, hi)
+			}()
+		}
+		wg.Wait()
+		for i, r := range results {
+			v.res.Pieces += r.pieces
+			v.res.HighPrecision += r.high
+			if r.failure != nil {
+				f := *r.failure
+				lo := new(big.Rat).Add(a, new(big.Rat).Mul(w, big.NewRat(int64(i), 1)))
+				f.Where, f.Lo, f.order, f.s = name, t.From, order, lo
+				f.Message = fmt.Sprintf("beyond the recorded tail start %s (the verifier's lemma needs a larger |s|): %s", t.From, f.Message)
+				v.fail(f)
+				return
+			}
+			v.addWorst(r.worst)
+		}
+		cur = next
+	}
+}
+
+func minRat(a, b *big.Rat) *big.Rat {
+	if a.Cmp(b) < 0 {
+		return a
+	}
+	return b
+}
+
+func maxRat(a, b *big.Rat) *big.Rat {
+	if a.Cmp(b) > 0 {
+		return a
+	}
+	return b
+}
+
+func fmtF(x *big.Float, digits int) string {
+	if x == nil {
+		return "(unbounded)"
+	}
+	return x.Text('g', digits)
+}
+
+func ratDecimal(r *big.Rat) string {
+	f := new(big.Float).SetPrec(200).SetRat(r)
+	return interval.DecimalUp(f, 6)
+}
+
+// describe writes the problem in one line.
+func describe(p certificates.Problem) string {
+	n := p.Halfplane.Normal
+	return fmt.Sprintf("edge %s; wedge at (%s, %s) spanned by (%s, %s) and (%s, %s), in the half-plane %s x + %s p > %s",
+		p.Edge, p.Vertex[0], p.Vertex[1], p.Rays[0][0], p.Rays[0][1], p.Rays[1][0], p.Rays[1][1], n[0], n[1], p.Halfplane.Offset)
+}

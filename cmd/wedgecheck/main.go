@@ -1,0 +1,207 @@
+// Command wedgecheck is the independent verifier for wedgebound
+// certificates. For each file it reads the certificate strictly, checks its
+// hash, recomputes the normal form exactly, checks that every relaxation
+// term is admissible, and recomputes in its own interval arithmetic (package
+// wedgebound/certificates/recheck, which shares only the interval library
+// and the schema with the certifier) an enclosure of the extreme
+// eigenvalue of the Mellin symbol on every cell and on both tails.
+//
+// Usage:
+//
+//	wedgecheck [--json] FILE...
+//
+// It prints PASS or FAIL per file with the problem, the proved bound and,
+// for a FAIL, the first claim that does not hold. Exit status: 0 when every
+// file passes, 1 when any claim fails (including a stale hash), 2 when a
+// file cannot be read or is not a well-formed certificate of a supported
+// kind.
+package main
+
+import (
+	"encoding/json"
+	"errors"
+	"fmt"
+	"io"
+	"os"
+	"strings"
+	"time"
+
+	"github.com/spf13/pflag"
+
+	"wedgebound/certificates"
+	"wedgebound/certificates/recheck"
+)
+
+// Exit statuses.
+const (
+	exitPass      = 0
+	exitFail      = 1
+	exitMalformed = 2
+)
+
+// Status of one file.
+const (
+	statusPass  = "PASS"
+	statusFail  = "FAIL"
+	statusError = "ERROR"
+)
+
+// fileReport is the outcome for one file (also the --json record).
+type fileReport struct {
+	File   string `json:"file"`
+	Status string `json:"status"`
+	// Error is the one-line reason for ERROR, or for a FAIL that is not a
+	// numerical claim (stale hash).
+	Error string `json:"error,omitempty"`
+	// StaleHash is set when the content does not match the recorded hash.
+	StaleHash *staleHash      `json:"stale_hash,omitempty"`
+	Result    *recheck.Result `json:"result,omitempty"`
+	Seconds   float64         `json:"seconds"`
+}
+
+type staleHash struct {
+	Recorded string `json:"recorded"`
+	Content  string `json:"content"`
+}
+
+func main() {
+	os.Exit(run(os.Args[1:], os.Stdout, os.Stderr))
+}
+
+func run(args []string, stdout, stderr io.Writer) int {
+	fs := pflag.NewFlagSet("wedgecheck", pflag.ContinueOnError)
+	fs.SetOutput(stderr)
+	asJSON := fs.Bool("json", false, "print one JSON array with a record per file instead of text")
+	workers := fs.Int("workers", 0, "goroutines over cells (0: one per CPU); the result does not depend on it")
+	depth := fs.Int("max-depth", 10, "how often the verifier may bisect a recorded cell before giving up")
+	noExt := fs.Bool("no-tail-extension", false, "require the verifier's tail lemma to hold at the recorded tail starts")
+	fs.Usage = func() {
+		fmt.Fprintf(stderr, "usage: wedgecheck [--json] FILE...\n\n"+
+			"Re-checks every claim of each certificate with an independent computation.\n"+
+			"Exit status: 0 all pass, 1 a claim fails (or a hash is stale), 2 unreadable or malformed input.\n\n")
+		fs.PrintDefaults()
+	}
+	if err := fs.Parse(args); err != nil {
+		if errors.Is(err, pflag.ErrHelp) {
+			return exitPass
+		}
+		return exitMalformed
+	}
+	files := fs.Args()
+	if len(files) == 0 {
+		fmt.Fprintln(stderr, "wedgecheck: no certificate files given (usage: wedgecheck [--json] FILE...)")
+		return exitMalformed
+	}
+	opt := recheck.Options{Workers: *workers, MaxDepth: *depth, NoTailExtension: *noExt}
+	code := exitPass
+	var reports []fileReport
+	for _, f := range files {
+		r, c := checkFile(f, opt)
+		if c > code {
+			code = c
+		}
+		if *asJSON {
+			reports = append(reports, r)
+		} else {
+			printText(stdout, r)
+		}
+	}
+	if *asJSON {
+		enc := json.NewEncoder(stdout)
+		enc.SetIndent("", " ")
+		if err := enc.Encode(reports); err != nil {
+			fmt.Fprintln(stderr, "wedgecheck:", err)
+			return exitMalformed
+		}
+	}
+	return code
+}
+
+// checkFile verifies one file and returns its report and exit status.
+func checkFile(path string, opt recheck.Options) (fileReport, int) {
+	start := time.Now()
+	rep := fileReport{File: path}
+	done := func(status string, code int) (fileReport, int) {
+		rep.Status = status
+		rep.Seconds = time.Since(start).Seconds()
+		return rep, code
+	}
+	data, err := os.ReadFile(path)
+	if err != nil {
+		rep.Error = oneLine(err.Error())
+		return done(statusError, exitMalformed)
+	}
+	c, err := certificates.Decode(data)
+	if errors.Is(err, certificates.ErrStaleHash) && c != nil {
+		h, herr := certificates.Hash(c)
+		if herr != nil {
+			rep.Error = oneLine(herr.Error())
+			return done(statusError, exitMalformed)
+		}
+		rep.StaleHash = &staleHash{Recorded: c.SHA256, Content: h}
+		rep.Error = fmt.Sprintf("stale hash: the recorded sha256 %s does not match the content, which hashes to %s; the file was changed after it was sealed, so none of its claims is checked", c.SHA256, h)
+		return done(statusFail, exitFail)
+	}
+	if err != nil {
+		rep.Error = oneLine(err.Error())
+		return done(statusError, exitMalformed)
+	}
+	res, err := recheck.Verify(c, opt)
+	if err != nil {
+		rep.Error = oneLine(err.Error())
+		return done(statusError, exitMalformed)
+	}
+	rep.Result = res
+	if res.Pass {
+		return done(statusPass, exitPass)
+	}
+	return done(statusFail, exitFail)
+}
+
+func oneLine(s string) string {
+	return strings.Join(strings.Fields(s), " ")
+}
+
+func printText(w io.Writer, r fileReport) {
+	fmt.Fprintf(w, "%s  %s\n", r.Status, r.File)
+	if r.Result == nil {
+		fmt.Fprintf(w, "      %s\n", r.Error)
+		return
+	}
+	res := r.Result
+	fmt.Fprintf(w, "      problem: %s\n", res.Problem)
+	if res.Pass {
+		fmt.Fprintf(w, "      proved:  %s\n", res.Statement)
+		fmt.Fprintf(w, "      bound:   %s", res.Bound)
+		if res.Recomputed != "" {
+			fmt.Fprintf(w, " (the recomputed enclosures support %s)", res.Recomputed)
+		}
+		fmt.Fprintln(w)
+	} else {
+		fmt.Fprintf(w, "      claim:   %s\n", res.Statement)
+		f := res.Failures[0]
+		where := f.Where
+		switch {
+		case f.Lo != "" && f.Hi != "":
+			where += fmt.Sprintf(" (s in [%s, %s])", f.Lo, f.Hi)
+		case f.Lo != "":
+			where += fmt.Sprintf(" (from s = %s)", f.Lo)
+		}
+		by := ""
+		if f.By != "" {
+			by = " (by " + f.By + ")"
+		}
+		fmt.Fprintf(w, "      first failing claim: %s: %s%s\n", where, f.Message, by)
+		if n := len(res.Failures) - 1; n > 0 {
+			fmt.Fprintf(w, "      (%d further failure(s); --json lists all)\n", n)
+		}
+	}
+	fmt.Fprintf(w, "      checked: %d cells on [%s, %s] as %d pieces", res.Cells, res.Range[0], res.Range[1], res.Pieces)
+	if res.HighPrecision > 0 {
+		fmt.Fprintf(w, " (%d at high precision)", res.HighPrecision)
+	}
+	fmt.Fprintf(w, ", and both tails, in %.2f s\n", r.Seconds)
+	for _, n := range res.Notes {
+		fmt.Fprintf(w, "      note: %s\n", n)
+	}
+}
