@@ -78,9 +78,11 @@ type SearchOptions struct {
 	MaxIter int
 	// MaxCuts bounds the cuts added per round (default 24).
 	MaxCuts int
-	// Digits is the number of significant decimal digits of the returned
-	// weights (default 6).
-	Digits int
+	// Digits is the least number of significant decimal digits of the
+	// returned weights (default 6); more are kept while rounding would
+	// worsen the bound by more than RoundTol (default 1e-6).
+	Digits   int
+	RoundTol float64
 	// Initial holds starting weights (default all zero).
 	Initial []float64
 	// SampledOnly restricts the cuts to the seed samples, so that the LP
@@ -141,7 +143,8 @@ type SearchResult struct {
 	RawWeights []float64
 	RawBound   float64
 	// ModelBound is -(final LP value): within the weight box no weights give
-	// a float bound below it. Bound - ModelBound is the remaining gap.
+	// a float bound below it. Bound - ModelBound is the remaining gap. It is
+	// -Inf when no LP round ran.
 	ModelBound float64
 	// WorstS is where the rounded weights attain Bound.
 	WorstS float64
@@ -157,15 +160,18 @@ type SearchResult struct {
 	CoverLo, CoverHi float64
 	// Stopped, if not empty, says why the rounds ended early (an LP failure).
 	Stopped string
-	// Converged reports RawBound - ModelBound <= Tol: the raw weights are
-	// optimal within Tol (for the s-samples of the model) inside the box.
+	// TailsChecked reports CheckLo <= CoverLo and CoverHi <= CheckHi: the
+	// float check looked at every s that the tail lemmas leave open.
+	TailsChecked bool
+	// Converged reports RawBound - ModelBound <= Tol: within the weight box
+	// the raw weights are optimal to Tol (in float arithmetic).
 	Converged bool
 	// Log holds every round.
 	Log []SearchStep
 }
 
 // Search looks for weights of terms that minimise the float bound of edge
-// and returns them rounded to opt.Digits significant digits together with
+// and returns them rounded to short decimals (opt.Digits) together with
 // the bound they reach. It is deterministic.
 func Search(terms []regions.Term[interval.F], edge regions.Edge, opt SearchOptions) (SearchResult, error) {
 	opt, err := opt.withDefaults(len(terms))
@@ -211,6 +217,7 @@ func (o SearchOptions) withDefaults(n int) (SearchOptions, error) {
 	def(&o.NearMargin, 0.01)
 	def(&o.Tol, 1e-6)
 	def(&o.TailMargin, 1e-4)
+	def(&o.RoundTol, 1e-6)
 	if o.MaxIter == 0 {
 		o.MaxIter = 300
 	}
@@ -223,7 +230,7 @@ func (o SearchOptions) withDefaults(n int) (SearchOptions, error) {
 	if o.Workers <= 0 {
 		o.Workers = runtime.GOMAXPROCS(0)
 	}
-	for _, v := range []float64{o.WeightBound, o.SampleStep, o.CheckStep, o.RefineMargin, o.NearMargin, o.Tol, o.TailMargin} {
+	for _, v := range []float64{o.WeightBound, o.SampleStep, o.CheckStep, o.RefineMargin, o.NearMargin, o.Tol, o.TailMargin, o.RoundTol} {
 		if !(v > 0) || math.IsInf(v, 0) {
 			return o, errors.New("search: weight bound, steps, margins and tolerance must be positive and finite")
 		}
@@ -609,8 +616,8 @@ func (s *searcher) run() (SearchResult, error) {
 			break
 		}
 		if len(viol) == 0 {
-			// The model is exact at x but the LP value still exceeds the best
-			// value only through rounding in the LP: nothing more to learn.
+			// No local minimum lies below the LP value: what is left of the
+			// gap is LP round-off, and no cut can close it.
 			break
 		}
 	}
@@ -618,13 +625,19 @@ func (s *searcher) run() (SearchResult, error) {
 	raw := s.evaluate(best, o.RefineMargin, 32)
 	res.RawWeights = best
 	res.RawBound = -raw.min
-	res.Weights = make([]string, s.n)
-	res.Values = make([]float64, s.n)
-	for j, v := range best {
-		res.Weights[j] = weightDecimal(v, o.Digits)
-		res.Values[j], _ = strconv.ParseFloat(res.Weights[j], 64)
+	var fin searchEval
+	for digits := o.Digits; ; digits++ {
+		res.Weights = make([]string, s.n)
+		res.Values = make([]float64, s.n)
+		for j, v := range best {
+			res.Weights[j] = weightDecimal(v, digits)
+			res.Values[j], _ = strconv.ParseFloat(res.Weights[j], 64)
+		}
+		fin = s.evaluate(res.Values, o.NearMargin, 64)
+		if -fin.min <= res.RawBound+o.RoundTol || digits >= 17 {
+			break
+		}
 	}
-	fin := s.evaluate(res.Values, o.NearMargin, 64)
 	res.Bound = -fin.min
 	res.WorstS = fin.worst
 	if s.n == 0 {
@@ -642,6 +655,7 @@ func (s *searcher) run() (SearchResult, error) {
 	if errHi != nil {
 		res.CoverHi = math.NaN()
 	}
+	res.TailsChecked = o.CheckLo <= res.CoverLo && res.CoverHi <= o.CheckHi
 	for _, cd := range fin.minima {
 		if cd.value <= fin.min+o.NearMargin {
 			res.Minima = append(res.Minima, LocalMin{S: cd.e.s, Value: cd.value})

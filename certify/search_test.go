@@ -179,7 +179,7 @@ func checkResult(t *testing.T, name string, terms []regions.Term[interval.F], r 
 	}
 	// With the default check range, the float check must reach the points
 	// from which the tail lemmas take over (so every s was looked at).
-	if !(r.CoverLo >= -2000 && r.CoverHi <= 2000) {
+	if !(r.CoverLo >= -2000 && r.CoverHi <= 2000) || !r.TailsChecked {
 		t.Errorf("%s: tail lemmas start at [%v, %v], beyond the checked range", name, r.CoverLo, r.CoverHi)
 	}
 	enc := enclosedBound(t, terms, r.Weights, r.WorstS)
@@ -202,6 +202,24 @@ func TestSearchOneExp(t *testing.T) {
 	}
 	if len(r.Minima) < 2 || !(r.NearLo < r.WorstS && r.WorstS < r.NearHi) {
 		t.Errorf("k=150: minima %v, near range [%v, %v]", r.Minima, r.NearLo, r.NearHi)
+	}
+	// No weight in the box beats the model bound.
+	for _, c := range []float64{0, 4, 8, 8.7, 12, 50} {
+		e, err := Search(terms, regions.Lower, SearchOptions{MaxIter: -1, Initial: []float64{c}})
+		if err != nil {
+			t.Fatal(err)
+		}
+		if e.Bound < r.ModelBound-1e-9 {
+			t.Errorf("k=150: weight %v gives %v, below the model bound %v", c, e.Bound, r.ModelBound)
+		}
+	}
+	// One significant digit ("8") would cost 5e-3; the rounding keeps more.
+	r1, err := Search(terms, regions.Lower, SearchOptions{Digits: 1})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if r1.Bound > r1.RawBound+1e-6 || len(r1.Weights[0]) < 3 {
+		t.Errorf("k=150, Digits 1: weight %s gives %v, raw %v", r1.Weights[0], r1.Bound, r1.RawBound)
 	}
 }
 
