@@ -203,6 +203,14 @@ func TestSearchOneExp(t *testing.T) {
 	if len(r.Minima) < 2 || !(r.NearLo < r.WorstS && r.WorstS < r.NearHi) {
 		t.Errorf("k=150: minima %v, near range [%v, %v]", r.Minima, r.NearLo, r.NearHi)
 	}
+	// The result does not depend on the number of goroutines.
+	r2, err := Search(terms, regions.Lower, SearchOptions{Workers: 1})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if r2.Bound != r.Bound || r2.Weights[0] != r.Weights[0] || len(r2.Log) != len(r.Log) {
+		t.Errorf("k=150: one worker gives %v %v, %d rounds; default %v %v, %d rounds", r2.Weights, r2.Bound, len(r2.Log), r.Weights, r.Bound, len(r.Log))
+	}
 	// No weight in the box beats the model bound.
 	for _, c := range []float64{0, 4, 8, 8.7, 12, 50} {
 		e, err := Search(terms, regions.Lower, SearchOptions{MaxIter: -1, Initial: []float64{c}})
@@ -346,5 +354,25 @@ func TestSearchDenseRecheck(t *testing.T) {
 			t.Errorf("k = %v: bound %v with the default check, %v with the dense one", ks, r.Bound, d.Bound)
 		}
 		checkResult(t, strings.Join(ks, ","), terms, r)
+	}
+}
+
+// BenchmarkSearchEntries times the float entries at one s (the quadrant
+// part and one exp term's Approx), the unit cost of the check grid.
+func BenchmarkSearchEntries(b *testing.B) {
+	m := &symbolModel{terms: expTerms(b, "150"), sigma: 1}
+	m.entries(-300)
+	m.entries(3)
+	b.Run("quadrant", func(b *testing.B) {
+		for b.Loop() {
+			quadrantB0Float(-3.7)
+		}
+	})
+	for _, s := range []float64{-300, 3} {
+		b.Run("exp150/s="+strconv.FormatFloat(s, 'g', -1, 64), func(b *testing.B) {
+			for b.Loop() {
+				m.entries(s)
+			}
+		})
 	}
 }
