@@ -51,6 +51,10 @@ type Failure struct {
 	// Refuted is true when the verifier exhibits a point where the claim is
 	// false, rather than merely failing to prove it.
 	Refuted bool `json:"refuted"`
+	// Bound is true when the failure concerns the claimed bound itself (the
+	// eigenvalue crossing it), false for other recorded numbers and for the
+	// structure.
+	Bound bool `json:"bound"`
 
 	order int
 	s     *big.Rat
@@ -341,6 +345,10 @@ type cellResult struct {
 	worst   *big.Float
 	mids    [][2]*big.Float // point enclosures (lo, hi) at piece midpoints
 	midAt   []*big.Float
+	encs    [][2]*big.Float // piece enclosures and their pieces
+	encAt   [][2]*big.Rat
+	// recorded is a contradiction of the cell's recorded enclosure.
+	recorded *Failure
 }
 
 func (v *verifier) checkCells() {
@@ -356,6 +364,9 @@ func (v *verifier) checkCells() {
 				lo, _ := certificates.Dec(rel.Cover[i].Lo, "lo")
 				hi, _ := certificates.Dec(rel.Cover[i].Hi, "hi")
 				results[i] = v.cell(lo, hi)
+				if results[i].failure == nil {
+					results[i].recorded = v.checkRecordedCell(rel.Cover[i], lo, hi, &results[i])
+				}
 			}
 		}()
 	}
@@ -378,30 +389,72 @@ func (v *verifier) checkCells() {
 			v.fail(f)
 			continue
 		}
-		// The recorded enclosure must contain the true eigenvalue at every
-		// point, in particular at the piece midpoints where the verifier has
-		// tight enclosures.
-		el, _ := certificates.Dec(c.EigLower, "eig_lower")
-		eu, _ := certificates.Dec(c.EigUpper, "eig_upper")
-		elF := new(big.Float).SetPrec(200).SetRat(el)
-		euF := new(big.Float).SetPrec(200).SetRat(eu)
-		for j, m := range r.mids {
-			if m[1].Cmp(elF) < 0 || m[0].Cmp(euF) > 0 {
-				at := r.midAt[j]
-				var by *big.Float
-				if m[1].Cmp(elF) < 0 {
-					by = new(big.Float).Sub(elF, m[1])
-				} else {
-					by = new(big.Float).Sub(m[0], euF)
-				}
-				v.fail(Failure{Where: fmt.Sprintf("cover[%d]", i), Lo: c.Lo, Hi: c.Hi, order: orderCover, s: lo, Refuted: true,
-					Message: fmt.Sprintf("the recorded enclosure [%s, %s] is false: at s = %s the eigenvalue lies in [%s, %s]",
-						c.EigLower, c.EigUpper, fmtF(at, 12), interval.DecimalDown(m[0], 10), interval.DecimalUp(m[1], 10)),
-					By: interval.DecimalDown(by, 4)})
-				break
-			}
+		if r.recorded != nil {
+			f := *r.recorded
+			f.Where = fmt.Sprintf("cover[%d]", i)
+			f.Lo, f.Hi = c.Lo, c.Hi
+			f.order, f.s = orderCover, lo
+			v.fail(f)
 		}
 	}
+}
+
+// checkRecordedCell looks for evidence that the recorded enclosure
+// [EigLower, EigUpper] of a cell is false: a piece whose enclosure misses
+// it, a point value that misses it, and, when the verifier's hull reaches
+// well beyond the recorded enclosure, point values on a grid of the cell.
+// It returns nil when nothing contradicts the record.
+func (v *verifier) checkRecordedCell(c certificates.Cell, lo, hi *big.Rat, r *cellResult) *Failure {
+	el, _ := certificates.Dec(c.EigLower, "eig_lower")
+	eu, _ := certificates.Dec(c.EigUpper, "eig_upper")
+	elF := new(big.Float).SetPrec(200).SetRat(el)
+	euF := new(big.Float).SetPrec(200).SetRat(eu)
+	miss := func(l, h *big.Float) bool { return h.Cmp(elF) < 0 || l.Cmp(euF) > 0 }
+	report := func(l, h *big.Float, what string) *Failure {
+		var by *big.Float
+		if h.Cmp(elF) < 0 {
+			by = new(big.Float).Sub(elF, h)
+		} else {
+			by = new(big.Float).Sub(l, euF)
+		}
+		return &Failure{Refuted: true, By: interval.DecimalDown(by, 4),
+			Message: fmt.Sprintf("the recorded enclosure [%s, %s] is false: %s the eigenvalue lies in [%s, %s]",
+				c.EigLower, c.EigUpper, what, interval.DecimalDown(l, 10), interval.DecimalUp(h, 10))}
+	}
+	for j, e := range r.encs {
+		if miss(e[0], e[1]) {
+			return report(e[0], e[1], fmt.Sprintf("for every s in [%s, %s]", ratText(r.encAt[j][0]), ratText(r.encAt[j][1])))
+		}
+	}
+	for j, m := range r.mids {
+		if miss(m[0], m[1]) {
+			return report(m[0], m[1], "at s = "+fmtF(r.midAt[j], 12))
+		}
+	}
+	if r.lo == nil || r.hi == nil {
+		return nil
+	}
+	slack := new(big.Float).Sub(r.hi, r.lo)
+	slack.Quo(slack, big.NewFloat(10))
+	below := new(big.Float).Sub(elF, r.lo)
+	above := new(big.Float).Sub(r.hi, euF)
+	if below.Cmp(slack) <= 0 && above.Cmp(slack) <= 0 {
+		return nil
+	}
+	const grid = 16
+	w := new(big.Rat).Sub(hi, lo)
+	for i := 0; i <= grid; i++ {
+		s := new(big.Rat).Add(lo, new(big.Rat).Mul(w, big.NewRat(int64(i), grid)))
+		p, err := v.mF.Piece(s, s)
+		if err != nil {
+			return nil
+		}
+		l, h := p.Mid.Endpoints()
+		if l != nil && h != nil && miss(l, h) {
+			return report(l, h, "at s = "+ratDecimal(s))
+		}
+	}
+	return nil
 }
 
 func (v *verifier) addWorst(w *big.Float) {
@@ -455,12 +508,13 @@ func (v *verifier) cell(lo, hi *big.Rat) cellResult {
 				by.Sub(mLo, by)
 				val = "lambda_max >= " + interval.DecimalDown(mLo, 10)
 			}
-			out.failure = &Failure{Refuted: true, By: interval.DecimalDown(by, 4),
+			out.failure = &Failure{Refuted: true, Bound: true, By: interval.DecimalDown(by, 4),
 				Message: fmt.Sprintf("the claim is false: at s = %s the verifier finds %s, beyond the claimed %s%s", fmtF(at, 12), val, sgn(v.edge), v.rel.Claim.Bound)}
 			return out
 		}
 		if !ok {
-			if p.depth < v.opt.MaxDepth {
+			// Bisection cannot repair an enclosure that overflowed.
+			if p.depth < v.opt.MaxDepth && eLo != nil && eHi != nil {
 				mid := new(big.Rat).Add(p.a, p.b)
 				mid.Mul(mid, half)
 				stack = append(stack, span{mid, p.b, p.depth + 1}, span{p.a, mid, p.depth + 1})
@@ -472,18 +526,20 @@ func (v *verifier) cell(lo, hi *big.Rat) cellResult {
 				msg = "the verifier's enclosure is unbounded"
 			} else if v.edge == Lower {
 				by.Sub(by, eLo)
-				msg = fmt.Sprintf("not proved: on s in [%s, %s] the verifier's enclosure of lambda_min reaches down to %s, below -%s", p.a.RatString(), p.b.RatString(), interval.DecimalDown(eLo, 10), v.rel.Claim.Bound)
+				msg = fmt.Sprintf("not proved: on s in [%s, %s] the verifier's enclosure of lambda_min reaches down to %s, below -%s", ratText(p.a), ratText(p.b), interval.DecimalDown(eLo, 10), v.rel.Claim.Bound)
 			} else {
 				by.Sub(eHi, by)
-				msg = fmt.Sprintf("not proved: on s in [%s, %s] the verifier's enclosure of lambda_max reaches up to %s, above %s", p.a.RatString(), p.b.RatString(), interval.DecimalUp(eHi, 10), v.rel.Claim.Bound)
+				msg = fmt.Sprintf("not proved: on s in [%s, %s] the verifier's enclosure of lambda_max reaches up to %s, above %s", ratText(p.a), ratText(p.b), interval.DecimalUp(eHi, 10), v.rel.Claim.Bound)
 			}
-			f := &Failure{Message: msg}
+			f := &Failure{Message: msg, Bound: true}
 			if eLo != nil && eHi != nil {
 				f.By = interval.DecimalUp(by, 4)
 			}
 			out.failure = f
 			return out
 		}
+		out.encs = append(out.encs, [2]*big.Float{eLo, eHi})
+		out.encAt = append(out.encAt, [2]*big.Rat{p.a, p.b})
 		if out.lo == nil || eLo.Cmp(out.lo) < 0 {
 			out.lo = eLo
 		}
@@ -552,7 +608,7 @@ func (v *verifier) checkTail(side int) {
 		if ok {
 			v.addWorst(end)
 			if cur.Cmp(from) != 0 {
-				v.note(fmt.Sprintf("%s: the verifier's tail lemma holds from s = %s; it covered [%s, %s] with its own cells", name, cur.RatString(), minRat(from, cur).RatString(), maxRat(from, cur).RatString()))
+				v.note(fmt.Sprintf("%s: the verifier's tail lemma holds from s = %s; it covered [%s, %s] with its own cells", name, ratText(cur), ratText(minRat(from, cur)), ratText(maxRat(from, cur))))
 			}
 			return
 		}
@@ -567,8 +623,8 @@ func (v *verifier) checkTail(side int) {
 					by = new(big.Float).Sub(end, thr)
 				}
 			}
-			f := Failure{Where: name, Lo: t.From, order: order, s: from,
-				Message: fmt.Sprintf("not proved: the verifier's tail lemma at s = %s gives only %s %s, short of the claim", cur.RatString(), map[Edge]string{Lower: "lambda_min >=", Upper: "lambda_max <="}[v.edge], fmtF(end, 10))}
+			f := Failure{Where: name, Lo: t.From, order: order, s: from, Bound: true,
+				Message: fmt.Sprintf("not proved: the verifier's tail lemma at s = %s gives only %s %s, short of the claim", ratText(cur), map[Edge]string{Lower: "lambda_min >=", Upper: "lambda_max <="}[v.edge], fmtF(end, 10))}
 			if by != nil {
 				f.By = interval.DecimalUp(by, 4)
 			}

@@ -139,10 +139,21 @@ func checkFile(path string, opt recheck.Options) (fileReport, int) {
 			return done(statusError, exitMalformed)
 		}
 		rep.StaleHash = &staleHash{Recorded: c.SHA256, Content: h}
-		rep.Error = fmt.Sprintf("stale hash: the recorded sha256 %s does not match the content, which hashes to %s; the file was changed after it was sealed, so none of its claims is checked", c.SHA256, h)
+		if c.SHA256 == "" {
+			rep.Error = fmt.Sprintf("stale hash: the certificate records no sha256 (it was never sealed; its content hashes to %s), so none of its claims is checked", h)
+		} else {
+			rep.Error = fmt.Sprintf("stale hash: the recorded sha256 %s does not match the content, which hashes to %s; the file was changed after it was sealed, so none of its claims is checked", c.SHA256, h)
+		}
 		return done(statusFail, exitFail)
 	}
 	if err != nil {
+		// An invalid document whose hash is also stale was changed after it
+		// was sealed: report the tampering first.
+		if rec, h, ok := staleDespiteInvalid(data); ok {
+			rep.StaleHash = &staleHash{Recorded: rec, Content: h}
+			rep.Error = fmt.Sprintf("stale hash: the recorded sha256 %s does not match the content, which hashes to %s; the file was changed after it was sealed (and is not valid either: %s)", rec, h, oneLine(err.Error()))
+			return done(statusFail, exitFail)
+		}
 		rep.Error = oneLine(err.Error())
 		return done(statusError, exitMalformed)
 	}
@@ -156,6 +167,37 @@ func checkFile(path string, opt recheck.Options) (fileReport, int) {
 		return done(statusPass, exitPass)
 	}
 	return done(statusFail, exitFail)
+}
+
+// staleDespiteInvalid parses data leniently (unknown fields ignored, no
+// validation) and reports the recorded and the content hash when they
+// differ.
+func staleDespiteInvalid(data []byte) (recorded, content string, stale bool) {
+	var c certificates.Certificate
+	if err := json.Unmarshal(data, &c); err != nil || c.SHA256 == "" {
+		return "", "", false
+	}
+	h, err := certificates.Hash(&c)
+	if err != nil || h == c.SHA256 {
+		return "", "", false
+	}
+	return c.SHA256, h, true
+}
+
+// failureText writes a failure in one line: where, what, by how much.
+func failureText(f recheck.Failure) string {
+	where := f.Where
+	switch {
+	case f.Lo != "" && f.Hi != "":
+		where += fmt.Sprintf(" (s in [%s, %s])", f.Lo, f.Hi)
+	case f.Lo != "":
+		where += fmt.Sprintf(" (from s = %s)", f.Lo)
+	}
+	by := ""
+	if f.By != "" {
+		by = " (by " + f.By + ")"
+	}
+	return where + ": " + f.Message + by
 }
 
 func oneLine(s string) string {
@@ -180,18 +222,15 @@ func printText(w io.Writer, r fileReport) {
 	} else {
 		fmt.Fprintf(w, "      claim:   %s\n", res.Statement)
 		f := res.Failures[0]
-		where := f.Where
-		switch {
-		case f.Lo != "" && f.Hi != "":
-			where += fmt.Sprintf(" (s in [%s, %s])", f.Lo, f.Hi)
-		case f.Lo != "":
-			where += fmt.Sprintf(" (from s = %s)", f.Lo)
+		fmt.Fprintf(w, "      first failing claim: %s\n", failureText(f))
+		if !f.Bound {
+			for _, g := range res.Failures {
+				if g.Bound {
+					fmt.Fprintf(w, "      the bound itself: %s\n", failureText(g))
+					break
+				}
+			}
 		}
-		by := ""
-		if f.By != "" {
-			by = " (by " + f.By + ")"
-		}
-		fmt.Fprintf(w, "      first failing claim: %s: %s%s\n", where, f.Message, by)
 		if n := len(res.Failures) - 1; n > 0 {
 			fmt.Fprintf(w, "      (%d further failure(s); --json lists all)\n", n)
 		}

@@ -1,0 +1,128 @@
+package recheck
+
+import (
+	"strings"
+	"sync"
+	"testing"
+
+	"wedgebound/certificates"
+)
+
+func backflow(edge string) certificates.Problem {
+	return certificates.Problem{
+		Vertex:    [2]string{"0", "0"},
+		Rays:      [2][2]string{{"0", "1"}, {"-1", "1"}},
+		Halfplane: certificates.Halfplane{Normal: [2]string{"0", "1"}, Offset: "0"},
+		Edge:      edge,
+	}
+}
+
+var (
+	expOnce sync.Once
+	expCert *certificates.Certificate
+	expErr  error
+)
+
+// expBackflow: one exp term k = 150, weight 8.46 (min lambda_min about
+// -0.05265 by a float scan), claiming 0.06.
+func expBackflow(t *testing.T) *certificates.Certificate {
+	expOnce.Do(func() {
+		expCert, expErr = BuildCertificate(BuildOptions{Problem: backflow("lower"),
+			Terms: []certificates.Term{{Kind: "exp", Params: map[string]string{"k": "150"}, Weight: "8.46"}},
+			Bound: "0.06", Lo: "-40", Hi: "16"})
+	})
+	if expErr != nil {
+		t.Fatal(expErr)
+	}
+	b, _ := certificates.Encode(expCert)
+	c, err := certificates.Decode(b)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return c
+}
+
+func TestVerifyPasses(t *testing.T) {
+	for _, o := range []BuildOptions{
+		{Problem: backflow("lower"), Bound: "0.1560", Lo: "-8", Hi: "8"},
+		{Problem: backflow("upper"), Bound: "1.0077", Lo: "-8", Hi: "8"},
+	} {
+		c, err := BuildCertificate(o)
+		if err != nil {
+			t.Fatal(err)
+		}
+		r, err := Verify(c, Options{})
+		if err != nil || !r.Pass {
+			t.Fatalf("%s %s: %v %+v", o.Problem.Edge, o.Bound, err, r)
+		}
+	}
+	r, err := Verify(expBackflow(t), Options{})
+	if err != nil || !r.Pass {
+		t.Fatalf("exp: %v %+v", err, r)
+	}
+	if r.Recomputed == "" || r.Recomputed > "0.06" || r.Recomputed < "0.0526" {
+		t.Errorf("recomputed bound %q: should lie in [0.05265, 0.06]", r.Recomputed)
+	}
+}
+
+// Claims beyond the true edge values (Werner 1988, see TestQuadrantEdges)
+// cannot be built.
+func TestBuildRefusesFalseClaims(t *testing.T) {
+	for _, o := range []BuildOptions{
+		{Problem: backflow("lower"), Bound: "0.1559", Lo: "-8", Hi: "8", MaxCells: 3000},
+		{Problem: backflow("upper"), Bound: "1.00767", Lo: "-8", Hi: "8", MaxCells: 3000},
+	} {
+		if _, err := BuildCertificate(o); err == nil {
+			t.Errorf("%s %s: built a false claim", o.Problem.Edge, o.Bound)
+		}
+	}
+}
+
+// When the recorded tail starts where the verifier's lemma is too weak, the
+// verifier covers more of s itself (or fails when told not to).
+func TestTailExtension(t *testing.T) {
+	c := expBackflow(t)
+	rel := c.Relaxation
+	var kept []certificates.Cell
+	for _, cell := range rel.Cover {
+		lo := rat(t, cell.Lo)
+		if lo.Cmp(rat(t, "-20")) >= 0 {
+			kept = append(kept, cell)
+		}
+	}
+	rel.Cover = kept
+	rel.Below.From = kept[0].Lo
+	if err := certificates.Seal(c); err != nil {
+		t.Fatal(err)
+	}
+	r, err := Verify(c, Options{})
+	if err != nil || !r.Pass {
+		t.Fatalf("extension: %v %+v", err, r.Failures)
+	}
+	if len(r.Notes) == 0 || !strings.Contains(r.Notes[0], "tail_below") {
+		t.Errorf("no note about the extension: %v", r.Notes)
+	}
+	r, _ = Verify(c, Options{NoTailExtension: true})
+	if r.Pass || r.Failures[0].Where != "tail_below" {
+		t.Errorf("without extension: %+v", r.Failures)
+	}
+}
+
+// An exp profile is nonzero on all of quadrant III, so it is inadmissible
+// when the vertex lies inside the half-plane (threshold > 0).
+func TestInadmissibleTerm(t *testing.T) {
+	c := expBackflow(t)
+	rel := c.Relaxation
+	rel.Problem.Vertex = [2]string{"0", "1"}
+	nf, err := Recompute(rel.Problem)
+	if err != nil {
+		t.Fatal(err)
+	}
+	rel.Normal.D = nf.D.RatString()
+	rel.Normal.Threshold = nf.Threshold.RatString()
+	certificates.Seal(c)
+	r, _ := Verify(c, Options{})
+	if r.Pass || r.Failures[0].Where != "terms[0]" || !strings.Contains(r.Failures[0].Message, "xp >= 1/4") {
+		t.Fatalf("inadmissible term accepted: %+v", r.Failures)
+	}
+}
