@@ -127,7 +127,10 @@ func WriteAtomic(path string, data []byte) error {
 		return err
 	}
 	tmp := f.Name()
-	_, err = f.Write(data)
+	err = f.Chmod(0o644)
+	if err == nil {
+		_, err = f.Write(data)
+	}
 	if err == nil {
 		err = f.Sync()
 	}

@@ -50,7 +50,10 @@ type expTerm[T interval.Real[T]] struct {
 type expRegime[T interval.Real[T]] struct {
 	lo, hi T
 	t, h   []interval.C[T]
-	err    T
+	err    T // bound for I(s)
+	quad   float64
+	trunc  float64
+	errD   T // bound for I'(s)
 	ft, fh []complex128
 }
 
@@ -184,18 +187,27 @@ func (e *expTerm[T]) buildRegime(idx int) (*expRegime[T], error) {
 	if cCheck.Less(cT) {
 		return nil, fmt.Errorf("exp term: decay rate check failed in regime %d", idx)
 	}
-	tail := interval.Exp(cT.Mul(Y).Neg()).Quo(cT.Mul(one.Sub(interval.Exp(Y.Mul(cosphi).Neg()))))
-	// Panels: geometric from the pole scale, then uniform of length L.
+	// and for the derivative (integrand times |t| = y):
+	// int_Y^inf y e^{-c y} dy = e^{-cY} (Y/c + 1/c^2).
+	tailDen := one.Sub(interval.Exp(Y.Mul(cosphi).Neg()))
+	tail := interval.Exp(cT.Mul(Y).Neg()).Quo(cT.Mul(tailDen))
+	tailD := interval.Exp(cT.Mul(Y).Neg()).Mul(Y.Quo(cT).Add(one.Quo(cT.Sqr()))).Quo(tailDen)
+	// Panels: geometric from the pole scale up to length L, uniform of length
+	// L to 8/c, then doubling to Y (the integrand is below e^{-8} there).
 	thetaF := e.theta.Lo()
 	d := math.Max(2*thetaF/math.Sqrt2, 1e-12)
-	L := math.Min(2/c, 2/omega)
+	L := 6 / math.Max(c, omega)
+	if dir == 0 {
+		L = math.Min(8, 6/omega)
+	}
 	edges := []float64{0, math.Min(d/2, L)}
 	for edges[len(edges)-1] < Yf {
 		last := edges[len(edges)-1]
-		next := last + math.Min(last, L)
-		if next > Yf {
-			next = Yf
+		step := math.Min(last, L)
+		if last > 8/c {
+			step = last
 		}
+		next := math.Min(last+step, Yf)
 		edges = append(edges, next)
 	}
 	rule, err := gaussLegendre(like, expNodes)
@@ -203,7 +215,7 @@ func (e *expTerm[T]) buildRegime(idx int) (*expRegime[T], error) {
 		return nil, err
 	}
 	reg := &expRegime[T]{lo: sr, hi: sr}
-	total := tail
+	total, totalD := tail, tailD
 	for p := 0; p+1 < len(edges); p++ {
 		y0, y1 := like.Float(edges[p]), like.Float(edges[p+1])
 		if p+1 == len(edges)-1 {
@@ -211,11 +223,12 @@ func (e *expTerm[T]) buildRegime(idx int) (*expRegime[T], error) {
 		}
 		mid := y0.Add(y1).Scale(-1)
 		hh := y1.Sub(y0).Scale(-1)
-		b, ok := e.panelBound(sr, rot, mid, hh)
+		b, bd, ok := e.panelBound(sr, rot, mid, hh)
 		if !ok {
 			return nil, fmt.Errorf("exp term k=%s: no analytic ellipse for panel %d of regime %d", e.kStr, p, idx)
 		}
 		total = total.Add(b)
+		totalD = totalD.Add(bd)
 		for j := range rule.x {
 			y := mid.Add(hh.Mul(rule.x[j]))
 			t := rot.MulReal(y)
@@ -227,10 +240,12 @@ func (e *expTerm[T]) buildRegime(idx int) (*expRegime[T], error) {
 			reg.fh = append(reg.fh, complex((h.Re.Lo()+h.Re.Hi())/2, (h.Im.Lo()+h.Im.Hi())/2))
 		}
 	}
-	if !total.IsFinite() {
+	if !total.IsFinite() || !totalD.IsFinite() {
 		return nil, fmt.Errorf("exp term k=%s: error bound not finite in regime %d", e.kStr, idx)
 	}
-	reg.err = total
+	reg.err, reg.errD = total, totalD
+	reg.quad = total.Sub(tail).Hi()
+	reg.trunc = tail.Hi()
 	return reg, nil
 }
 
@@ -254,37 +269,40 @@ func (e *expTerm[T]) integrandNoS(t interval.C[T]) interval.C[T] {
 	return t.Scale(-1).Neg().Exp().Quo(den)
 }
 
-// panelBound returns the Gauss remainder bound for the panel with centre mid
-// and half-length hh, minimised over a few ellipse parameters rho. The
-// integrand modulus |e^{-a t}|/|1 - q e^{-t}| is bounded for all s in sr on a
-// grid of boxes covering the ellipse's bounding box.
-func (e *expTerm[T]) panelBound(sr T, rot interval.C[T], mid, hh T) (T, bool) {
-	var best T
+// panelBound returns the Gauss remainder bounds for I and I' on the panel
+// with centre mid and half-length hh, each minimised over a few ellipse
+// parameters rho. The integrand modulus |e^{-a t}|/|1 - q e^{-t}| (times |t|
+// for I') is bounded for all s in sr on a grid of boxes covering the
+// ellipse's bounding box.
+func (e *expTerm[T]) panelBound(sr T, rot interval.C[T], mid, hh T) (T, T, bool) {
+	var best, bestD T
 	found := false
 	for _, rf := range []float64{8, 5, 3.5, 2.5, 1.8, 1.4, 1.2} {
 		rho := mid.Float(rf)
 		inv := mid.Int(1).Quo(rho)
 		ax := hh.Mul(rho.Add(inv)).Scale(-1) // semi-major
 		bx := hh.Mul(rho.Sub(inv)).Scale(-1) // semi-minor
-		M, ok := e.boxMax(sr, rot, mid.Sub(ax), mid.Add(ax), bx)
+		M, MD, ok := e.boxMax(sr, rot, mid.Sub(ax), mid.Add(ax), bx)
 		if !ok {
 			continue
 		}
 		b := gaussBound(M, rho, expNodes).Mul(hh)
-		if !found || b.Hi() < best.Hi() {
-			best, found = b, true
+		bd := gaussBound(MD, rho, expNodes).Mul(hh)
+		if !found || b.Add(bd).Hi() < best.Add(bestD).Hi() {
+			best, bestD, found = b, bd, true
 		}
 	}
-	return best, found
+	return best, bestD, found
 }
 
-// boxMax bounds |e^{-a t}/(1 - q e^{-t})| for t = rot*(x + i y),
-// x in [x0, x1], |y| <= by, s in sr, by a 8 x 4 grid of boxes.
-func (e *expTerm[T]) boxMax(sr T, rot interval.C[T], x0, x1, by T) (T, bool) {
+// boxMax bounds M = |e^{-a t}/(1 - q e^{-t})| and MD = |t| M for
+// t = rot*(x + i y), x in [x0, x1], |y| <= by, s in sr, by a 8 x 4 grid of
+// boxes.
+func (e *expTerm[T]) boxMax(sr T, rot interval.C[T], x0, x1, by T) (T, T, bool) {
 	const nx, ny = 8, 4
 	x0l, x1h := interval.Lower(x0), interval.Upper(x1)
 	w := x1h.Sub(x0l)
-	M := sr.Int(0)
+	M, MD := sr.Int(0), sr.Int(0)
 	one := interval.RealC(sr.Int(1))
 	for i := range nx {
 		xa := x0l.Add(w.Mul(sr.Frac(int64(i), nx)))
@@ -299,17 +317,20 @@ func (e *expTerm[T]) boxMax(sr T, rot interval.C[T], x0, x1, by T) (T, bool) {
 			num := interval.Exp(re.Neg())
 			den := one.Sub(e.q.Mul(t.Neg().Exp())).Abs()
 			if den.Sign() <= 0 || !num.IsFinite() {
-				return M, false
+				return M, MD, false
 			}
-			M = M.Max(interval.Upper(num.Quo(interval.Lower(den))))
+			m := interval.Upper(num.Quo(interval.Lower(den)))
+			M = M.Max(m)
+			MD = MD.Max(interval.Upper(m.Mul(t.Abs())))
 		}
 	}
-	return M, M.IsFinite()
+	return M, MD, M.IsFinite() && MD.IsFinite()
 }
 
-// integralI encloses I(s) for every s in the interval s, which must lie
-// within one regime.
-func (e *expTerm[T]) integralI(s T, idx int) (interval.C[T], error) {
+// integralI encloses I(s) (deriv false) or I'(s) (deriv true) for every s
+// in the interval s, which must lie within one regime. I'(s) is the same
+// path integral with the extra factor -i t.
+func (e *expTerm[T]) integralI(s T, idx int, deriv bool) (interval.C[T], error) {
 	r, err := e.regime(idx)
 	if err != nil {
 		return interval.C[T]{}, err
@@ -320,32 +341,28 @@ func (e *expTerm[T]) integralI(s T, idx int) (interval.C[T], error) {
 		mag := interval.Exp(s.Mul(t.Im))
 		sn, cs := interval.SinCos(s.Mul(t.Re))
 		f := interval.C[T]{Re: cs.Mul(mag), Im: sn.Mul(mag).Neg()}
+		if deriv {
+			f = f.Mul(interval.C[T]{Re: t.Im, Im: t.Re.Neg()})
+		}
 		sum = sum.Add(r.h[j].Mul(f))
 	}
-	return interval.C[T]{Re: sum.Re.Pad(r.err), Im: sum.Im.Pad(r.err)}, nil
+	pad := r.err
+	if deriv {
+		pad = r.errD
+	}
+	return interval.C[T]{Re: sum.Re.Pad(pad), Im: sum.Im.Pad(pad)}, nil
 }
 
-// Enclose returns D = M_{++} and B = conj(M_{+-}) for every s in s.
-func (e *expTerm[T]) Enclose(s T) Symbol[T] {
-	pi := s.Pi()
-	as := s.Abs()
-	// D = 2 e^{2 theta s - pi |s|} / (|k+2i| (1 + e^{-2 pi |s|})), which is
-	// e^{2 theta s}/(|k+2i| cosh(pi s)) without overflow.
-	num := interval.Exp(e.theta.Scale(1).Mul(s).Sub(pi.Mul(as))).Scale(1)
-	den := e.mod.Mul(s.Int(1).Add(interval.Exp(pi.Scale(1).Mul(as).Neg())))
-	d := num.Quo(den)
-	// Split s over regimes.
+// overRegimes encloses I or I' over s by splitting it at regime boundaries.
+func (e *expTerm[T]) overRegimes(s T, deriv bool) (interval.C[T], bool) {
 	var I interval.C[T]
 	first := true
-	lo, hi := regimeIndex(s.Lo()), regimeIndex(s.Hi())
-	for idx := lo; idx <= hi; idx++ {
-		part := s
+	for idx := regimeIndex(s.Lo()); idx <= regimeIndex(s.Hi()); idx++ {
 		rlo, rhi := regimeRange(idx)
-		part = intersectReal(s, s.Float(rlo).Hull(s.Float(rhi)))
-		v, err := e.integralI(part, idx)
+		part := intersectReal(s, s.Float(rlo).Hull(s.Float(rhi)))
+		v, err := e.integralI(part, idx, deriv)
 		if err != nil {
-			w := s.Whole()
-			return Symbol[T]{A: s.Int(0), D: d, B: interval.C[T]{Re: w, Im: w}}
+			return I, false
 		}
 		if first {
 			I, first = v, false
@@ -353,9 +370,44 @@ func (e *expTerm[T]) Enclose(s T) Symbol[T] {
 			I = I.Hull(v)
 		}
 	}
+	return I, true
+}
+
+// diagonal encloses D(s) = 2 e^{2 theta s - pi |s|} / (|k+2i| (1 + e^{-2 pi |s|})),
+// which is e^{2 theta s}/(|k+2i| cosh(pi s)) without overflow.
+func (e *expTerm[T]) diagonal(s T) T {
+	pi := s.Pi()
+	as := s.Abs()
+	num := interval.Exp(e.theta.Scale(1).Mul(s).Sub(pi.Mul(as))).Scale(1)
+	den := e.mod.Mul(s.Int(1).Add(interval.Exp(pi.Scale(1).Mul(as).Neg())))
+	return num.Quo(den)
+}
+
+// Enclose returns D = M_{++} and B = conj(M_{+-}) for every s in s.
+func (e *expTerm[T]) Enclose(s T) Symbol[T] {
+	pi := s.Pi()
+	d := e.diagonal(s)
+	I, ok := e.overRegimes(s, false)
+	if !ok {
+		w := s.Whole()
+		return Symbol[T]{A: s.Int(0), D: d, B: interval.C[T]{Re: w, Im: w}}
+	}
 	// B = conj(I/(pi (k - 2i))) = conj(I) / (pi (k + 2i)).
 	b := I.Conj().Quo(e.kp.MulReal(pi))
 	return Symbol[T]{A: s.Int(0), D: d, B: b}
+}
+
+// Slope returns D' = D (2 theta - pi tanh(pi s)) and B' = conj(I')/(pi (k + 2i))
+// for every s in s.
+func (e *expTerm[T]) Slope(s T) Symbol[T] {
+	pi := s.Pi()
+	dp := e.diagonal(s).Mul(e.theta.Scale(1).Sub(pi.Mul(interval.Tanh(pi.Mul(s)))))
+	I, ok := e.overRegimes(s, true)
+	if !ok {
+		w := s.Whole()
+		return Symbol[T]{A: s.Int(0), D: dp, B: interval.C[T]{Re: w, Im: w}}
+	}
+	return Symbol[T]{A: s.Int(0), D: dp, B: I.Conj().Quo(e.kp.MulReal(pi))}
 }
 
 // intersectReal returns the intersection of x and y (assumed to overlap).
@@ -370,24 +422,34 @@ func intersectReal[T interval.Real[T]](x, y T) T {
 // Lemma. For |s| >= S > 0:
 // |D(s)| <= 2 e^{-(pi - 2 side theta) S}/|k + 2i| (from cosh(pi s) >=
 // e^{pi |s|}/2 and 0 < theta < pi/2), and
-// |B(s)| <= (1/4 + pi/(4 sqrt 2) + 0.9429/|k + 2i|)/(pi S).
+// |B(s)| <= C(k)/S with C(k) = (1/4 + atan(k/2) |k + 2i|/(4k))/pi.
 // Proof of the second: integrating r^{a-1} by parts,
 // I = 1/(a(1-q)) - (q/a) int_0^1 r^a (1 - q r)^{-2} dr, so
-// |I| <= (1/|a|) [1/|1-q| + int_0^1 r^{1/2}/|1-qr|^2 dr]. Here
-// |1 - q| = 2 sin theta, sin theta = 2/|k+2i|, and
-// |1 - q r|^2 = (1-r)^2 + 4 r sin^2 theta: on [0, 1/2] the integrand is at
-// most 4 r^{1/2} (integral (8/3) 2^{-3/2} < 0.9429), on [1/2, 1] at most
-// 1/((1-r)^2 + 2 sin^2 theta) (integral < pi/(2 sqrt 2 sin theta)). With
-// |B| = |I|/(pi |k+2i|) and |a| >= |s| >= S the bound follows.
+// |I| <= (1/|a|) [1/|1-q| + int_0^1 dr/|1-qr|^2] (as |r^a| = r^{1/2} <= 1).
+// Here |1 - q| = 2 sin theta = 4/|k+2i|, and since
+// |1 - q r|^2 = r^2 - 2 r cos 2theta + 1, the integral is exactly
+// [atan((r - cos 2theta)/sin 2theta)/sin 2theta]_0^1 = (pi/2 - theta)/sin 2theta
+// with sin 2theta = 4k/|k+2i|^2 and pi/2 - theta = atan(k/2). Then
+// |B| = |I|/(pi |k+2i|) and |a| >= |s| >= S give the bound.
 func (e *expTerm[T]) Tail(S T, side int) (T, T) {
 	pi := S.Pi()
 	ex := pi.Sub(e.theta.Scale(1).Mul(S.Int(int64(side)))).Mul(S).Neg()
 	dmax := interval.Exp(ex).Scale(1).Quo(e.mod)
-	c, _ := S.Decimal("0.9429")
-	r2 := S.Int(2).Sqrt()
-	k := S.Frac(1, 4).Add(pi.Quo(r2.Scale(2))).Add(c.Quo(e.mod))
-	bmax := k.Quo(pi.Mul(S))
+	c := interval.Atan(e.k.Scale(-1)).Mul(e.mod).Quo(e.k.Scale(2)).Add(S.Frac(1, 4))
+	bmax := c.Quo(pi.Mul(S))
 	return interval.Upper(dmax), interval.Upper(bmax)
+}
+
+// Budget returns the largest quadrature and truncation bounds over the
+// regimes built so far (bounds on I; B is I/(pi |k+2i|), smaller still).
+func (e *expTerm[T]) Budget() (float64, float64) {
+	e.mu.Lock()
+	defer e.mu.Unlock()
+	q, t := 0.0, 0.0
+	for _, r := range e.regimes {
+		q, t = math.Max(q, r.quad), math.Max(t, r.trunc)
+	}
+	return q, t
 }
 
 // Approx returns float64 values of D(s) and B(s) from the same quadrature

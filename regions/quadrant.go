@@ -96,9 +96,10 @@ func QuadrantTail[T interval.Real[T]](S T, side int) (a T, bmax T) {
 	return one.Sub(t).Scale(-1).Hull(S.Int(0)), bmax
 }
 
-// TailSymbol encloses the symbol of g = chi_Q + sum_j w_j h_j for every s
-// with side*s >= S (S >= 1): A from QuadrantTail, D in [-dm, dm] and both
-// parts of B in [-bm, bm], where dm = sum |w_j| dmax_j and
+// TailSymbol returns, for every s with side*s >= S (S >= 1), an enclosure
+// of a matrix with the same eigenvalues as M(s): A from QuadrantTail, D in
+// [-dm, dm], and B replaced by |B| in [0, bm] (the eigenvalues depend on B
+// only through |B|), where dm = sum |w_j| dmax_j and
 // bm = 1/(8S) + sum |w_j| bmax_j from the terms' tail lemmas.
 func TailSymbol[T interval.Real[T]](S T, side int, terms []Term[T], weights []T) Symbol[T] {
 	a, bm := QuadrantTail(S, side)
@@ -110,8 +111,18 @@ func TailSymbol[T interval.Real[T]](S T, side int, terms []Term[T], weights []T)
 		bm = bm.Add(w.Mul(b))
 	}
 	box := dm.Neg().Hull(dm)
-	bbox := bm.Neg().Hull(bm)
-	return Symbol[T]{A: a, D: box, B: interval.C[T]{Re: bbox, Im: bbox}}
+	return Symbol[T]{A: a, D: box, B: interval.C[T]{Re: S.Int(0).Hull(bm), Im: S.Int(0)}}
+}
+
+// QuadrantSlope encloses dM/ds of the quadrant for every s in s:
+// A' = (pi/2) sech^2(pi s), D' = 0, B' = (i/2pi) J'(s).
+func QuadrantSlope[T interval.Real[T]](s T) Symbol[T] {
+	pi := s.Pi()
+	ap := interval.Sech(pi.Mul(s)).Sqr().Mul(pi).Scale(-1)
+	jp := quadrantJPrime(s)
+	twoPi := pi.Scale(1)
+	b := interval.C[T]{Re: jp.Im.Neg().Quo(twoPi), Im: jp.Re.Quo(twoPi)}
+	return Symbol[T]{A: ap, D: s.Int(0), B: b}
 }
 
 // Relaxation is the symbol of g = chi_Q + sum_j w_j h_j.
@@ -127,6 +138,32 @@ func (r Relaxation[T]) Enclose(s T) Symbol[T] {
 		m = m.Add(t.Enclose(s).Scaled(r.Weights[i]))
 	}
 	return m
+}
+
+// Slope encloses dM/ds for every s in s.
+func (r Relaxation[T]) Slope(s T) Symbol[T] {
+	m := QuadrantSlope(s)
+	for i, t := range r.Terms {
+		m = m.Add(t.Slope(s).Scaled(r.Weights[i]))
+	}
+	return m
+}
+
+// Eig encloses lambda(s) (lambda_min for edge Lower, lambda_max for edge
+// Upper) for every s in the interval s by the mean-value form
+// lambda(c) + lambda'(s)(s - c), c the midpoint, falling back to the direct
+// enclosure when that is narrower or the slope is unbounded.
+func (r Relaxation[T]) Eig(s T, e Edge) T {
+	m := r.Enclose(s)
+	direct := m.Eig(e)
+	c := s.Mid()
+	v := r.Enclose(c).Eig(e)
+	d := EigSlope(m, r.Slope(s), e)
+	mv := v.Add(d.Mul(s.Sub(c)))
+	if !mv.IsFinite() || mv.Rad() >= direct.Rad() {
+		return direct
+	}
+	return mv
 }
 
 // Tail encloses M(s) for every s with side*s >= S.

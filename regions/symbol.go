@@ -40,6 +40,22 @@ func (m Symbol[T]) radius() T {
 	return g.Sqr().Add(m.B.Abs2()).Sqrt()
 }
 
+// EigSlope encloses d lambda/ds for lambda_min (edge Lower) or lambda_max
+// (edge Upper), given enclosures m of M and dm of dM/ds over the same set:
+// lambda' = (A'+D')/2 -/+ [((A-D)/2)((A'-D')/2) + Re(conj(B) B')]/R with
+// R = sqrt(((A-D)/2)^2 + |B|^2). Where R may vanish the result is Whole.
+func EigSlope[T interval.Real[T]](m, dm Symbol[T], e Edge) T {
+	g := m.A.Sub(m.D).Scale(-1)
+	gp := dm.A.Sub(dm.D).Scale(-1)
+	num := g.Mul(gp).Add(m.B.Re.Mul(dm.B.Re)).Add(m.B.Im.Mul(dm.B.Im))
+	rp := num.Quo(m.radius())
+	h := dm.A.Add(dm.D).Scale(-1)
+	if e == Upper {
+		return h.Add(rp)
+	}
+	return h.Sub(rp)
+}
+
 // Eig encloses lambda_min (edge Lower) or lambda_max (edge Upper).
 func (m Symbol[T]) Eig(e Edge) T {
 	if e == Upper {
@@ -62,9 +78,14 @@ type Term[T interval.Real[T]] interface {
 	// Enclose returns the unit-weight symbol (A = 0) enclosed for every s in
 	// the interval s.
 	Enclose(s T) Symbol[T]
+	// Slope returns an enclosure of dM/ds (A' = 0) for every s in s.
+	Slope(s T) Symbol[T]
 	// Tail returns upper bounds dmax >= |D(s)| and bmax >= |B(s)| valid for
 	// every s >= S (side +1) or every s <= -S (side -1), for S >= 1.
 	Tail(S T, side int) (dmax, bmax T)
+	// Budget returns upper bounds on the largest quadrature remainder and
+	// truncation error added to any enclosure so far (0 for closed forms).
+	Budget() (quadrature, truncation float64)
 	// Approx returns float64 values of D(s) and B(s) (not certified; for the
 	// candidate search).
 	Approx(s float64) (d float64, b complex128)

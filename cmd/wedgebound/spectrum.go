@@ -59,25 +59,40 @@ func runSpectrum(args []string, stdout, stderr io.Writer) int {
 		fmt.Fprintf(stderr, "wedgebound spectrum: --digits %d is outside 1..60\n", *digits)
 		return 2
 	}
-	prec := uint(float64(*digits)*math.Log2(10)) + 40
-	like := interval.NewB(0, prec)
-	var rel regions.Relaxation[interval.B]
-	if *termsFile != "" {
+	var res [2]interval.B
+	if *termsFile == "" {
+		prec := uint(float64(*digits)*math.Log2(10)) + 40
+		var err error
+		res, err = spectrum(interval.NewB(0, prec), regions.Relaxation[interval.B]{}, *digits, true)
+		if err != nil {
+			fmt.Fprintf(stderr, "wedgebound spectrum: %v\n", err)
+			return 1
+		}
+	} else {
+		// With terms the cells use direct float64-interval enclosures, which
+		// settle about 8 digits within the cell budget.
+		if *digits > 8 {
+			fmt.Fprintf(stderr, "wedgebound spectrum: with --terms at most 8 digits are supported, not %d\n", *digits)
+			return 2
+		}
 		data, err := os.ReadFile(*termsFile)
 		if err != nil {
 			fmt.Fprintf(stderr, "wedgebound spectrum: %v\n", err)
 			return 2
 		}
-		rel, err = decodeRelaxation(like, data)
+		rel, err := decodeRelaxation(interval.F{}, data)
 		if err != nil {
 			fmt.Fprintf(stderr, "wedgebound spectrum: %s: %v\n", *termsFile, err)
 			return 2
 		}
-	}
-	res, err := spectrum(like, rel, *digits)
-	if err != nil {
-		fmt.Fprintf(stderr, "wedgebound spectrum: %v\n", err)
-		return 1
+		r, err := spectrum(interval.F{}, rel, *digits, false)
+		if err != nil {
+			fmt.Fprintf(stderr, "wedgebound spectrum: %v\n", err)
+			return 1
+		}
+		for i := range r {
+			res[i] = interval.NewB(0, 53).Between(r[i].Endpoints())
+		}
 	}
 	inf, err1 := toBracket(res[0], *digits+2)
 	sup, err2 := toBracket(res[1], *digits+2)
@@ -99,30 +114,35 @@ func runSpectrum(args []string, stdout, stderr io.Writer) int {
 }
 
 // spectrum encloses inf spec and sup spec of Op(g) for g = chi_Q + terms.
-// The bare quadrant uses the mean-value form, which reaches any precision;
-// with terms the cells use direct enclosures, and the result is as narrow as
-// the cell budget allows (still proved).
-func spectrum(like interval.B, rel regions.Relaxation[interval.B], digits int) ([2]interval.B, error) {
-	S := like.Int(8)
-	var out [2]interval.B
+// The bare quadrant (quadrant true) uses the mean-value form, which reaches
+// any precision, with float64 cells first; with terms the cells use direct
+// enclosures.
+func spectrum[T interval.Real[T]](like T, rel regions.Relaxation[T], digits int, quadrant bool) ([2]T, error) {
+	// Push the tails out until the tail lemma's |B| bound is small.
+	Sv := int64(8)
+	for Sv < 1<<14 && rel.Tail(like.Int(Sv), -1).B.Re.Hi() > 0.002 {
+		Sv *= 2
+	}
+	S := like.Int(Sv)
+	var out [2]T
 	eps, _ := like.Decimal(fmt.Sprintf("1e-%d", digits+3))
+	minW := new(big.Rat).SetFrac(big.NewInt(1), new(big.Int).Exp(big.NewInt(10), big.NewInt(int64(digits/2+8)), nil))
 	for i, e := range []regions.Edge{regions.Lower, regions.Upper} {
-		f := func(s interval.B) interval.B { return rel.Enclose(s).Eig(e) }
-		var fast certify.CellFunc[interval.B]
-		if len(rel.Terms) == 0 {
-			f = func(s interval.B) interval.B { return regions.QuadrantEig(s, e) }
-			// A float64 evaluation settles the cells away from the extremum.
-			fast = func(s interval.B) interval.B {
+		point := func(s T) T { return rel.Enclose(s).Eig(e) }
+		f := func(s T) T { return rel.Eig(s, e) }
+		var fast certify.CellFunc[T]
+		if quadrant {
+			f = func(s T) T { return regions.QuadrantEig(s, e) }
+			fast = func(s T) T {
 				v := regions.QuadrantEig(interval.F{}.Between(s.Endpoints()), e)
 				return s.Between(v.Endpoints())
 			}
 		}
-		point := func(s interval.B) interval.B { return rel.Enclose(s).Eig(e) }
 		outside := rel.Tail(S, 1).Eig(e).Hull(rel.Tail(S, -1).Eig(e))
-		x := certify.Extreme[interval.B]{
-			F: f, Point: point, Fast: fast, Lo: big.NewRat(-8, 1), Hi: big.NewRat(8, 1), Outside: outside,
+		x := certify.Extreme[T]{
+			F: f, Point: point, Fast: fast, Lo: big.NewRat(-Sv, 1), Hi: big.NewRat(Sv, 1), Outside: outside,
 			Cells: 64, Eps: eps, Max: e == regions.Upper,
-			Options: certify.CoverOptions{MinWidth: new(big.Rat).SetFrac(big.NewInt(1), new(big.Int).Exp(big.NewInt(10), big.NewInt(int64(digits/2+8)), nil)), MaxCells: 200000},
+			Options: certify.CoverOptions{MinWidth: minW, MaxCells: 200000},
 		}
 		r, err := x.Solve(like)
 		if err != nil {

@@ -8,7 +8,6 @@ import (
 	"image/color"
 	"io"
 	"math"
-	"os"
 	"strconv"
 	"strings"
 
@@ -83,10 +82,10 @@ func runSweep(args []string, stdout, stderr io.Writer) int {
 	if err != nil {
 		return fail("%v", err)
 	}
-	bar := newProgress(stderr, len(alphas), *quiet)
+	bar := newProgress(stderr, *quiet)
 	var rows []sweepPoint
 	for i, s := range alphas {
-		bar.show(i, s)
+		bar.update("alpha="+s, i, len(alphas))
 		a, err := strip.ParseAlpha(s)
 		if err != nil {
 			return fail("%v", err)
@@ -103,7 +102,7 @@ func runSweep(args []string, stdout, stderr io.Writer) int {
 		x, _ := strconv.ParseFloat(s, 64)
 		rows = append(rows, sweepPoint{alpha: s, x: x, res: res})
 	}
-	bar.show(len(alphas), "")
+	bar.update("sweep", len(alphas), len(alphas))
 	bar.done()
 
 	table := sweepCSV(rows)
@@ -271,40 +270,4 @@ func trimDigits(s string, n int) string {
 		out = append(out, c)
 	}
 	return string(out)
-}
-
-// progress draws a one-line progress bar on stderr when it is a terminal.
-type progress struct {
-	w     io.Writer
-	total int
-	on    bool
-}
-
-func newProgress(w io.Writer, total int, quiet bool) *progress {
-	on := false
-	if f, ok := w.(*os.File); ok && !quiet {
-		if st, err := f.Stat(); err == nil && st.Mode()&os.ModeCharDevice != 0 {
-			on = true
-		}
-	}
-	return &progress{w: w, total: total, on: on}
-}
-
-func (p *progress) show(done int, next string) {
-	if !p.on {
-		return
-	}
-	const width = 30
-	k := done * width / max(p.total, 1)
-	msg := ""
-	if next != "" {
-		msg = " alpha=" + next
-	}
-	fmt.Fprintf(p.w, "\r[%s%s] %d/%d%s\x1b[K", strings.Repeat("#", k), strings.Repeat(" ", width-k), done, p.total, msg)
-}
-
-func (p *progress) done() {
-	if p.on {
-		fmt.Fprint(p.w, "\n")
-	}
 }

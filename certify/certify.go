@@ -1,0 +1,360 @@
+package certify
+
+import (
+	"errors"
+	"fmt"
+	"math"
+	"math/big"
+	"sort"
+	"strings"
+	"time"
+
+	"wedgebound/certificates"
+	"wedgebound/interval"
+	"wedgebound/regions"
+)
+
+// Config describes one certification run.
+type Config struct {
+	// Problem is the wedge problem as given.
+	Problem regions.Problem
+	// Ks are the decay rates of the exponential profiles e^{-k xp} (exact
+	// decimals); empty means the bare quadrant.
+	Ks []string
+	// Weights, if set, are the exact decimal weights to certify (no search).
+	Weights []string
+	// WeightBound bounds the searched weights (default 50, or max k / 15).
+	WeightBound float64
+	// Margin is how far above the float candidate the cover aims (default
+	// 2e-4); cells are refined until they prove the candidate plus Margin.
+	Margin float64
+	// Workers is the number of goroutines (0 means GOMAXPROCS); the
+	// certificate does not depend on it.
+	Workers int
+	// Progress, if set, receives stage names and counts.
+	Progress func(stage string, done, total int)
+}
+
+// Outcome is a finished certification.
+type Outcome struct {
+	// Certificate holds the proof (not yet sealed or written).
+	Certificate *certificates.Certificate
+	// Bound is the proved bound (the claim).
+	Bound *big.Rat
+	// Candidate is the float64 estimate the search reached (not proved).
+	Candidate float64
+	// Worst is the cell where the proved margin is smallest.
+	Worst ProvedCell[interval.F]
+	// Elapsed is the wall time of the run.
+	Elapsed time.Duration
+}
+
+// Run searches weights (unless given), proves the bound on a cover of s
+// with both tails closed, and assembles the certificate. It never returns a
+// bound that is not proved: the claim is the worst proved value over all
+// cells and tails, rounded up.
+func Run(cfg Config) (*Outcome, error) {
+	start := time.Now()
+	nf, err := regions.Normalize(cfg.Problem)
+	if err != nil {
+		return nil, err
+	}
+	edge := nf.Edge
+	u0, ok := nf.Threshold()
+	if len(cfg.Ks) > 0 && (!ok || u0.Sign() != 0) {
+		return nil, errors.New("the exponential profiles reach xp = 0, but this geometry leaves only xp >= d^2/(4ab) > 0 of quadrant III free; certify the bare quadrant (no terms) instead")
+	}
+	like := interval.PointF(0)
+	var terms []regions.Term[interval.F]
+	for _, k := range cfg.Ks {
+		t, err := regions.NewTerm(like, "exp", map[string]string{"k": k})
+		if err != nil {
+			return nil, err
+		}
+		terms = append(terms, t)
+	}
+	progress := cfg.Progress
+	if progress == nil {
+		progress = func(string, int, int) {}
+	}
+	weights := cfg.Weights
+	candidate := math.NaN()
+	if len(weights) == 0 && len(terms) > 0 {
+		wb := cfg.WeightBound
+		if wb == 0 {
+			wb = 50
+			for _, t := range terms {
+				k, _ := like.Decimal(t.Params()["k"])
+				wb = math.Max(wb, k.Hi()/15)
+			}
+		}
+		iter := 0
+		res, err := Search(terms, edge, SearchOptions{WeightBound: wb, Workers: cfg.Workers, Progress: func(SearchStep) {
+			iter++
+			progress("search", iter, 0)
+		}})
+		if err != nil {
+			return nil, err
+		}
+		weights, candidate = res.Weights, res.Bound
+	}
+	if len(weights) != len(terms) {
+		return nil, fmt.Errorf("%d weights given for %d terms", len(weights), len(terms))
+	}
+	w := make([]interval.F, len(weights))
+	for i, s := range weights {
+		if _, err := regions.ParseRat(s); err != nil {
+			return nil, fmt.Errorf("weight %d: %v", i, err)
+		}
+		w[i], _ = like.Decimal(s)
+	}
+	rel := regions.Relaxation[interval.F]{Terms: terms, Weights: w}
+	if math.IsNaN(candidate) {
+		// Weights given (or no terms): estimate the candidate from a scan.
+		candidate = scanCandidate(rel, edge)
+	}
+	margin := cfg.Margin
+	if margin == 0 {
+		margin = 2e-4
+	}
+	target := candidate + margin
+	lo, hi, err := coverRange(rel, edge, target)
+	if err != nil {
+		return nil, err
+	}
+	grid := regimeGrid(lo, hi)
+	tgt := like.Float(target)
+	accept := func(v interval.F) bool {
+		if !v.IsFinite() {
+			return false
+		}
+		if edge == regions.Upper {
+			return v.Hi() <= tgt.Lo()
+		}
+		return v.Lo() >= -tgt.Lo()
+	}
+	f := func(s interval.F) interval.F { return rel.Eig(s, edge) }
+	cells, err := Cover(like, f, grid, accept, CoverOptions{
+		MinWidth: big.NewRat(1, 1_000_000), MaxCells: 200_000, Workers: cfg.Workers,
+		Progress: func(d, t int) { progress("cover", d, t) },
+	})
+	if err != nil {
+		return nil, err
+	}
+	// The proved value: worst over cells and tails.
+	sLo := like.Float(lo)
+	sHi := like.Float(hi)
+	below := rel.Tail(sLo, -1).Eig(edge)
+	above := rel.Tail(sHi, 1).Eig(edge)
+	worst := cells[0]
+	proved := edgeValue(below, edge)
+	proved = math.Max(proved, edgeValue(above, edge))
+	for _, c := range cells {
+		if !c.Value.IsFinite() {
+			return nil, fmt.Errorf("enclosure not finite on [%s, %s]", c.Lo.FloatString(6), c.Hi.FloatString(6))
+		}
+		if v := edgeValue(c.Value, edge); v >= edgeValue(worst.Value, edge) {
+			worst = c
+		}
+		proved = math.Max(proved, edgeValue(c.Value, edge))
+	}
+	claim := roundUp(proved, 6)
+	out := &Outcome{Bound: claim, Candidate: candidate, Worst: worst}
+	cert, err := assemble(cfg.Problem, nf, rel, weights, edge, claim, cells, lo, hi, below, above)
+	if err != nil {
+		return nil, err
+	}
+	out.Certificate = cert
+	out.Elapsed = time.Since(start)
+	return out, nil
+}
+
+// edgeValue turns an eigenvalue enclosure into the bound it proves: for edge
+// lower -lambda_min <= -lo, for edge upper lambda_max <= hi. The float64
+// endpoints of F are exact, so no rounding happens here.
+func edgeValue(v interval.F, e regions.Edge) float64 {
+	if !v.IsFinite() {
+		return math.Inf(1)
+	}
+	if e == regions.Upper {
+		return v.Hi()
+	}
+	return -v.Lo()
+}
+
+// roundUp returns the smallest decimal with n significant digits >= v.
+func roundUp(v float64, n int) *big.Rat {
+	x := new(big.Float).SetFloat64(v)
+	r, _ := new(big.Rat).SetString(interval.DecimalUp(x, n))
+	return r
+}
+
+// scanCandidate estimates the bound of fixed weights by point evaluations.
+func scanCandidate(rel regions.Relaxation[interval.F], e regions.Edge) float64 {
+	best := math.Inf(-1)
+	for i := -4000; i <= 4000; i++ {
+		s := float64(i) / 100
+		v := edgeValue(rel.Enclose(interval.PointF(s)).Eig(e), e)
+		best = math.Max(best, v)
+	}
+	return best
+}
+
+// coverRange returns integers lo, hi > 0 such that the tail lemmas prove the
+// target for s <= -lo and s >= hi (at least 8, at most 2^20).
+func coverRange(rel regions.Relaxation[interval.F], e regions.Edge, target float64) (float64, float64, error) {
+	find := func(side int) (float64, error) {
+		for S := 8.0; S <= 1<<20; S *= 1.25 {
+			S = math.Ceil(S)
+			if edgeValue(rel.Tail(interval.PointF(S), side).Eig(e), e) <= target {
+				return S, nil
+			}
+		}
+		return 0, fmt.Errorf("the tail lemmas do not reach the target %.6g for |s| <= 2^20", target)
+	}
+	lo, err := find(-1)
+	if err != nil {
+		return 0, 0, err
+	}
+	hi, err := find(1)
+	return lo, hi, err
+}
+
+// regimeGrid returns breakpoints for [-lo, hi]: the points +-2^m (where the
+// exponential terms switch quadrature regimes), each piece split in 16,
+// and [-1, 1] split in 64.
+func regimeGrid(lo, hi float64) []*big.Rat {
+	pts := map[string]*big.Rat{}
+	add := func(v *big.Rat) { pts[v.RatString()] = v }
+	addRange := func(a, b *big.Rat, n int64) {
+		step := new(big.Rat).Quo(new(big.Rat).Sub(b, a), big.NewRat(n, 1))
+		for i := int64(0); i <= n; i++ {
+			add(new(big.Rat).Add(a, new(big.Rat).Mul(step, big.NewRat(i, 1))))
+		}
+	}
+	L := new(big.Rat).SetFloat64(lo)
+	H := new(big.Rat).SetFloat64(hi)
+	addRange(big.NewRat(-1, 1), big.NewRat(1, 1), 64)
+	for m := int64(1); ; m *= 2 {
+		a, b := big.NewRat(m, 1), big.NewRat(2*m, 1)
+		done := true
+		if a.Cmp(H) < 0 {
+			done = false
+			bb := b
+			if bb.Cmp(H) > 0 {
+				bb = H
+			}
+			addRange(a, bb, 16)
+		}
+		if a.Cmp(L) < 0 {
+			done = false
+			bb := b
+			if bb.Cmp(L) > 0 {
+				bb = L
+			}
+			addRange(new(big.Rat).Neg(bb), new(big.Rat).Neg(a), 16)
+		}
+		if done {
+			break
+		}
+	}
+	var g []*big.Rat
+	for _, v := range pts {
+		g = append(g, v)
+	}
+	sort.Slice(g, func(i, j int) bool { return g[i].Cmp(g[j]) < 0 })
+	return g
+}
+
+// assemble builds the certificate from the proved pieces.
+func assemble(p regions.Problem, nf regions.Normal, rel regions.Relaxation[interval.F], weights []string, edge regions.Edge,
+	claim *big.Rat, cells []ProvedCell[interval.F], lo, hi float64, below, above interval.F) (*certificates.Certificate, error) {
+	num := func(n regions.Number) string { return n.String() }
+	prob := certificates.Problem{
+		Vertex: [2]string{num(p.Vertex[0]), num(p.Vertex[1])},
+		Rays: [2][2]string{{num(p.Rays[0][0]), num(p.Rays[0][1])},
+			{num(p.Rays[1][0]), num(p.Rays[1][1])}},
+		Halfplane: certificates.Halfplane{Normal: [2]string{num(p.Halfplane.Normal[0]), num(p.Halfplane.Normal[1])},
+			Offset: num(p.Halfplane.Offset)},
+		Edge: string(p.Edge),
+	}
+	u0, ok := nf.Threshold()
+	thr := "none"
+	if ok {
+		thr = regions.RatString(u0)
+	}
+	r := &certificates.Relaxation{
+		Problem: prob,
+		Normal: certificates.NormalForm{
+			Map: [4]string{regions.RatString(nf.S[0]), regions.RatString(nf.S[1]), regions.RatString(nf.S[2]), regions.RatString(nf.S[3])},
+			A:   regions.RatString(nf.A), B: regions.RatString(nf.B), D: regions.RatString(nf.D), Threshold: thr,
+		},
+		PrecisionBits: 53,
+	}
+	var quad, trunc float64
+	for i, t := range rel.Terms {
+		r.Terms = append(r.Terms, certificates.Term{Kind: t.Kind(), Params: t.Params(), Weight: weights[i]})
+		q, tr := t.Budget()
+		quad, trunc = math.Max(quad, q), math.Max(trunc, tr)
+	}
+	claimStr := regions.RatString(claim)
+	r.Claim = certificates.Claim{Edge: string(edge), Bound: claimStr, Statement: statement(edge, claimStr)}
+	var rounding float64
+	for _, c := range cells {
+		l, h, err := interval.Decimals(c.Value, 17)
+		if err != nil {
+			return nil, err
+		}
+		r.Cover = append(r.Cover, certificates.Cell{Lo: regions.RatString(c.Lo), Hi: regions.RatString(c.Hi), EigLower: l, EigUpper: h})
+	}
+	// Rounding: the width of a point enclosure at the worst cell's midpoint.
+	tailB := rel.Tail(interval.PointF(lo), -1).B.Re.Hi()
+	tailB = math.Max(tailB, rel.Tail(interval.PointF(hi), 1).B.Re.Hi())
+	bl, bh := tailBounds(below, above, edge)
+	r.Below = certificates.Tail{From: r.Cover[0].Lo, Bound: bl, Lemma: "quadrant-exp-tail-v1"}
+	r.Above = certificates.Tail{From: r.Cover[len(r.Cover)-1].Hi, Bound: bh, Lemma: "quadrant-exp-tail-v1"}
+	mid := cells[0]
+	for _, c := range cells {
+		if edgeValue(c.Value, edge) > edgeValue(mid.Value, edge) {
+			mid = c
+		}
+	}
+	m := new(big.Rat).Add(mid.Lo, mid.Hi)
+	m.Quo(m, big.NewRat(2, 1))
+	mf, _ := m.Float64()
+	rounding = rel.Enclose(interval.PointF(mf)).Eig(edge).Rad() * 2
+	up := func(v float64) string { return interval.DecimalUp(new(big.Float).SetFloat64(v), 3) }
+	r.Budget = certificates.Budget{Quadrature: up(quad), Truncation: up(trunc), Tails: up(tailB), Rounding: up(rounding)}
+	return &certificates.Certificate{Kind: certificates.KindRelaxation, Relaxation: r}, nil
+}
+
+// tailBounds formats the tail conclusions as decimal strings rounded to the
+// safe side: lower bounds of lambda_min (edge lower) or upper bounds of
+// lambda_max (edge upper).
+func tailBounds(below, above interval.F, e regions.Edge) (string, string) {
+	f := func(v interval.F) string {
+		lo, hi := v.Endpoints()
+		if e == regions.Upper {
+			return interval.DecimalUp(hi, 17)
+		}
+		return interval.DecimalDown(lo, 17)
+	}
+	return f(below), f(above)
+}
+
+// statement is the claim in words.
+func statement(e regions.Edge, bound string) string {
+	if e == regions.Upper {
+		return "sup spec(P Op(chi_W) P) <= " + bound + ", since lambda_max(M(s)) <= " + bound + " for every real s"
+	}
+	return "-inf spec(P Op(chi_W) P) <= " + bound + ", since lambda_min(M(s)) >= -" + bound + " for every real s"
+}
+
+// Describe returns a one-line description of a problem for summaries.
+func Describe(p regions.Problem) string {
+	var b strings.Builder
+	fmt.Fprintf(&b, "wedge at (%s, %s) with rays (%s, %s), (%s, %s) in {%s x + %s p > %s}, %s edge",
+		p.Vertex[0], p.Vertex[1], p.Rays[0][0], p.Rays[0][1], p.Rays[1][0], p.Rays[1][1],
+		p.Halfplane.Normal[0], p.Halfplane.Normal[1], p.Halfplane.Offset, p.Edge)
+	return b.String()
+}

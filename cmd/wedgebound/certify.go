@@ -1,0 +1,124 @@
+package main
+
+import (
+	"encoding/json"
+	"fmt"
+	"io"
+	"os"
+	"strings"
+
+	"github.com/spf13/pflag"
+
+	"wedgebound/certificates"
+	"wedgebound/certify"
+	"wedgebound/regions"
+)
+
+func init() {
+	register("certify", "prove a spectral bound for a wedge problem and write its certificate", runCertify)
+}
+
+func runCertify(args []string, stdout, stderr io.Writer) int {
+	fs := pflag.NewFlagSet("certify", pflag.ContinueOnError)
+	fs.SetOutput(stderr)
+	preset := fs.String("preset", "", "named problem: "+strings.Join(regions.PresetNames(), ", "))
+	problemFile := fs.String("problem", "", "JSON problem file {\"vertex\", \"rays\", \"halfplane\", \"edge\"}")
+	out := fs.String("out", "", "certificate file to write (required)")
+	exps := fs.String("exp", "150", "comma-separated decay rates k of the exponential profiles e^{-k xp} (\"none\" for the bare quadrant)")
+	weights := fs.String("weights", "", "comma-separated exact weights for the profiles (default: searched)")
+	weightBound := fs.Float64("weight-bound", 0, "bound on the searched weights (default max(50, k_max/15))")
+	margin := fs.Float64("margin", 2e-4, "how far above the float candidate the cover aims")
+	prec := fs.Int("prec", 53, "working precision in bits (53: float64 intervals)")
+	workers := fs.Int("workers", 0, "goroutines (default: all cores); the certificate does not depend on it")
+	asJSON := fs.Bool("json", false, "print a JSON summary with the proved bound in the field bound")
+	quiet := fs.Bool("quiet", false, "no progress display")
+	fs.Usage = func() {
+		fmt.Fprintln(stderr, "usage: wedgebound certify (--preset NAME | --problem FILE) --out FILE [flags]")
+		fs.PrintDefaults()
+	}
+	if err := fs.Parse(args); err != nil {
+		if err == pflag.ErrHelp {
+			return 0
+		}
+		return 2
+	}
+	fail := func(format string, a ...any) int {
+		fmt.Fprintf(stderr, "wedgebound certify: "+format+"\n", a...)
+		return 2
+	}
+	if fs.NArg() > 0 {
+		return fail("unexpected argument %q", fs.Arg(0))
+	}
+	if (*preset == "") == (*problemFile == "") {
+		return fail("give exactly one of --preset and --problem")
+	}
+	if *out == "" {
+		return fail("--out FILE is required")
+	}
+	if *prec != 53 {
+		return fail("--prec %d: this version certifies in float64 interval arithmetic only (--prec 53)", *prec)
+	}
+	if *margin <= 0 || *margin > 1 {
+		return fail("--margin must lie in (0, 1]")
+	}
+	var p regions.Problem
+	if *preset != "" {
+		var ok bool
+		if p, ok = regions.Presets[*preset]; !ok {
+			return fail("unknown preset %q (known: %s)", *preset, strings.Join(regions.PresetNames(), ", "))
+		}
+	} else {
+		data, err := os.ReadFile(*problemFile)
+		if err != nil {
+			return fail("%v", err)
+		}
+		if p, err = regions.ReadProblem(data); err != nil {
+			return fail("%s: %v", *problemFile, err)
+		}
+	}
+	cfg := certify.Config{Problem: p, WeightBound: *weightBound, Margin: *margin, Workers: *workers}
+	if s := strings.TrimSpace(*exps); s != "" && s != "none" {
+		cfg.Ks = splitList(s)
+	}
+	if *weights != "" {
+		cfg.Weights = splitList(*weights)
+	}
+	bar := newProgress(stderr, *quiet)
+	cfg.Progress = bar.update
+	res, err := certify.Run(cfg)
+	bar.done()
+	if err != nil {
+		fmt.Fprintf(stderr, "wedgebound certify: %v\n", err)
+		return 1
+	}
+	if err := certificates.WriteFile(*out, res.Certificate); err != nil {
+		fmt.Fprintf(stderr, "wedgebound certify: writing %s: %v\n", *out, err)
+		return 1
+	}
+	bound := res.Certificate.Relaxation.Claim.Bound
+	if *asJSON {
+		b, _ := json.MarshalIndent(struct {
+			Bound     string  `json:"bound"`
+			Edge      string  `json:"edge"`
+			Candidate float64 `json:"candidate"`
+			Cells     int     `json:"cells"`
+			Seconds   float64 `json:"seconds"`
+			File      string  `json:"file"`
+			SHA256    string  `json:"sha256"`
+		}{bound, string(p.Edge), res.Candidate, len(res.Certificate.Relaxation.Cover), res.Elapsed.Seconds(), *out, res.Certificate.SHA256}, "", "  ")
+		fmt.Fprintln(stdout, string(b))
+		return 0
+	}
+	fmt.Fprintf(stdout, "proved: %s (%d cells, %.1f s) -> %s\n", res.Certificate.Relaxation.Claim.Statement, len(res.Certificate.Relaxation.Cover), res.Elapsed.Seconds(), *out)
+	return 0
+}
+
+func splitList(s string) []string {
+	var out []string
+	for _, f := range strings.Split(s, ",") {
+		if f = strings.TrimSpace(f); f != "" {
+			out = append(out, f)
+		}
+	}
+	return out
+}
