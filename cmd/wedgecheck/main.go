@@ -3,18 +3,30 @@
 // hash, recomputes the normal form exactly, checks that every relaxation
 // term is admissible, and recomputes in its own interval arithmetic (package
 // wedgebound/certificates/recheck, which shares only the interval library
-// and the schema with the certifier) an enclosure of the extreme
-// eigenvalue of the Mellin symbol on every cell and on both tails.
+// and the certificate schema with the certifier) an enclosure of the
+// extreme eigenvalue of the Mellin symbol on every cell and on both tails.
 //
 // Usage:
 //
-//	wedgecheck [--json] FILE...
+//	wedgecheck [--json] [--workers N] [--max-depth D] [--no-tail-extension] FILE...
 //
 // It prints PASS or FAIL per file with the problem, the proved bound and,
-// for a FAIL, the first claim that does not hold. Exit status: 0 when every
-// file passes, 1 when any claim fails (including a stale hash), 2 when a
-// file cannot be read or is not a well-formed certificate of a supported
-// kind.
+// for a FAIL, the first claim that does not hold (which cell or tail, by
+// how much, and whether the claim is shown false or only not proved).
+// Exit status: 0 when every file passes, 1 when any claim fails (a stale
+// hash included), 2 when a file cannot be read, is not a well-formed
+// certificate, or is of a kind this version does not check (strip-bracket
+// certificates are not supported yet).
+//
+// Referee workflow:
+//
+//	go build ./cmd/wedgecheck
+//	./wedgecheck testdata/backflow.json          # PASS, exit 0
+//	./wedgecheck --json testdata/*.json | less   # every failure, machine-readable
+//
+// A PASS means: the file is the one that was sealed, the problem's normal
+// form and every term's admissibility check out exactly, and the verifier's
+// own enclosures prove the claimed inequality on every cell and both tails.
 package main
 
 import (

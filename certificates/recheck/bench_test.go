@@ -1,0 +1,62 @@
+package recheck
+
+import (
+	"testing"
+
+	"wedgebound/certificates"
+	"wedgebound/interval"
+)
+
+// BenchmarkPieceQuadrant is the cost of one cell enclosure of the bare
+// quadrant symbol (float64 intervals).
+func BenchmarkPieceQuadrant(b *testing.B) {
+	m, _ := NewModel(interval.F{}, Lower, nil)
+	lo, hi := rat(b, "-0.36"), rat(b, "-0.35")
+	for b.Loop() {
+		if _, err := m.Piece(lo, hi); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
+
+// BenchmarkPieceExp is the cost of one cell enclosure with one exp term
+// (k = 150), its quadrature regime already built.
+func BenchmarkPieceExp(b *testing.B) {
+	m, _ := NewModel(interval.F{}, Lower, []certificates.Term{{Kind: "exp", Params: map[string]string{"k": "150"}, Weight: "8.46"}})
+	lo, hi := rat(b, "-0.3"), rat(b, "-0.29")
+	m.Piece(lo, hi)
+	for b.Loop() {
+		if _, err := m.Piece(lo, hi); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
+
+// BenchmarkRegimeBuild is the one-off cost of the quadrature data for one
+// regime (k = 150, s in [-8, -4]).
+func BenchmarkRegimeBuild(b *testing.B) {
+	for b.Loop() {
+		e, _ := newExpTerm(interval.F{}, map[string]string{"k": "150"})
+		if _, err := e.buildRegime(-3); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
+
+// BenchmarkVerifyExp verifies a 75-cell certificate with one exp term on
+// one goroutine, regime set-up included.
+func BenchmarkVerifyExp(b *testing.B) {
+	c, err := BuildCertificate(BuildOptions{Problem: backflow("lower"),
+		Terms: []certificates.Term{{Kind: "exp", Params: map[string]string{"k": "150"}, Weight: "8.46"}},
+		Bound: "0.06", Lo: "-40", Hi: "16"})
+	if err != nil {
+		b.Fatal(err)
+	}
+	b.ReportMetric(float64(len(c.Relaxation.Cover)), "cells")
+	for b.Loop() {
+		r, err := Verify(c, Options{Workers: 1})
+		if err != nil || !r.Pass {
+			b.Fatal("verification failed")
+		}
+	}
+}

@@ -1,0 +1,37 @@
+// Package recheck is the verifier's own numerics: from the problem, the
+// terms and the cover recorded in a halfplane-relaxation certificate it
+// recomputes everything the certificate's claim rests on, by routes of its
+// own, and reports every claim that does not hold.
+//
+// Trusted base. Besides the Go standard library the package uses only
+// wedgebound/interval (outward-rounded interval arithmetic, elementary
+// functions, digamma and trigamma) and wedgebound/certificates (the schema,
+// strict decoding and the hash). It never imports the certifier's packages
+// (wedgebound/regions, wedgebound/certify); TestTrustedBase enforces this
+// with go list -deps.
+//
+// What is recomputed, and how:
+//
+//   - Normal form and admissibility, exactly in rationals (Recompute,
+//     Normal.Compare): the map, a, b, d and the threshold d^2/(4ab); every
+//     term's profile must vanish below the threshold.
+//   - The symbol M(s) = [[A, B], [conj B, D]] of the relaxation (Model): A
+//     and the quadrant part of B in closed form (tanh, digamma), D in closed
+//     form, and the exp terms' off-diagonal integral I(s) by composite
+//     Clenshaw-Curtis quadrature on a ray turned by +-pi/3, with a remainder
+//     bound of its own (ccRule.bound) from integrand bounds on boxes covering
+//     each panel's Bernstein ellipse, and a summed geometric series with a
+//     proved remainder beyond the cut (expTerm).
+//   - On every cell, an enclosure of the extreme eigenvalue over the whole
+//     cell in mean-value form (Model.Piece), bisected when it cannot decide,
+//     with a big-float retry when float64 intervals cannot.
+//   - On both tails, a lemma of its own (Model.Tail): |J| <= pi/(4|a|),
+//     |B_exp| <= C(k)/|a| by one integration by parts, exponential bounds of
+//     D, and monotonicity of the eigenvalues in A, D and |B|.
+//   - The recorded numbers themselves: each cell's recorded enclosure and
+//     each tail's recorded bound must support the claim and must not be
+//     contradicted by the recomputation.
+//
+// Verify runs all of it over a decoded certificate; BuildCertificate is a
+// small reference certifier on the same numerics, used by the tests.
+package recheck
