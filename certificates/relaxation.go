@@ -34,6 +34,19 @@ type Relaxation struct {
 	// Budget records the largest error term of each kind that was added to
 	// any enclosure in the cover (all are already included in the cells).
 	Budget Budget `json:"error_budget"`
+	// Shard marks a partial certificate: its cover is one contiguous part of
+	// the full cover [Shard.Lo, Shard.Hi]; Merge joins the parts. A partial
+	// certificate proves nothing on its own.
+	Shard *Shard `json:"shard,omitempty"`
+}
+
+// Shard identifies part Index (0-based) of Count of a sharded cover of
+// [Lo, Hi].
+type Shard struct {
+	Index int    `json:"index"`
+	Count int    `json:"count"`
+	Lo    string `json:"lo"`
+	Hi    string `json:"hi"`
 }
 
 // Problem is a wedge (vertex and two rays) inside {normal . z > offset}.
@@ -222,11 +235,32 @@ func (r *Relaxation) validate() error {
 			return fmt.Errorf("%s: missing lemma", t.name)
 		}
 	}
-	if r.Below.From != r.Cover[0].Lo {
-		return fmt.Errorf("tail_below starts at %s but the cover starts at %s", r.Below.From, r.Cover[0].Lo)
+	first, last := r.Cover[0].Lo, r.Cover[len(r.Cover)-1].Hi
+	if r.Shard != nil {
+		sh := r.Shard
+		if sh.Count < 1 || sh.Index < 0 || sh.Index >= sh.Count {
+			return fmt.Errorf("shard %d of %d is out of range", sh.Index, sh.Count)
+		}
+		lo, err := Dec(sh.Lo, "shard.lo")
+		if err != nil {
+			return err
+		}
+		hi, err := Dec(sh.Hi, "shard.hi")
+		if err != nil {
+			return err
+		}
+		a, _ := Dec(first, "cover[0].lo")
+		b, _ := Dec(last, "cover[last].hi")
+		if a.Cmp(lo) < 0 || b.Cmp(hi) > 0 {
+			return fmt.Errorf("shard cover [%s, %s] leaves the full range [%s, %s]", first, last, sh.Lo, sh.Hi)
+		}
+		first, last = sh.Lo, sh.Hi
 	}
-	if r.Above.From != r.Cover[len(r.Cover)-1].Hi {
-		return fmt.Errorf("tail_above starts at %s but the cover ends at %s", r.Above.From, r.Cover[len(r.Cover)-1].Hi)
+	if r.Below.From != first {
+		return fmt.Errorf("tail_below starts at %s but the cover starts at %s", r.Below.From, first)
+	}
+	if r.Above.From != last {
+		return fmt.Errorf("tail_above starts at %s but the cover ends at %s", r.Above.From, last)
 	}
 	for _, f := range []struct{ v, n string }{{r.Budget.Quadrature, "error_budget.quadrature"}, {r.Budget.Truncation, "error_budget.truncation"}, {r.Budget.Tails, "error_budget.tails"}, {r.Budget.Rounding, "error_budget.rounding"}} {
 		v, err := Dec(f.v, f.n)

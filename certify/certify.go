@@ -31,6 +31,11 @@ type Config struct {
 	// Workers is the number of goroutines (0 means GOMAXPROCS); the
 	// certificate does not depend on it.
 	Workers int
+	// Shard and Shards split the cover: the run proves only the contiguous
+	// part Shard (0-based) of Shards of the initial cells and marks the
+	// certificate as partial (certificates.Merge joins the parts). Shards 0
+	// means a whole run.
+	Shard, Shards int
 	// Progress, if set, receives stage names and counts.
 	Progress func(stage string, done, total int)
 }
@@ -123,6 +128,14 @@ func Run(cfg Config) (*Outcome, error) {
 		return nil, err
 	}
 	grid := regimeGrid(lo, hi)
+	if cfg.Shards > 0 {
+		if cfg.Shard < 0 || cfg.Shard >= cfg.Shards || cfg.Shards > len(grid)-1 {
+			return nil, fmt.Errorf("shard %d/%d is out of range (the cover has %d initial cells)", cfg.Shard+1, cfg.Shards, len(grid)-1)
+		}
+		n := len(grid) - 1
+		a, b := cfg.Shard*n/cfg.Shards, (cfg.Shard+1)*n/cfg.Shards
+		grid = grid[a : b+1]
+	}
 	tgt := like.Float(target)
 	accept := func(v interval.F) bool {
 		if !v.IsFinite() {
@@ -163,6 +176,12 @@ func Run(cfg Config) (*Outcome, error) {
 	cert, err := assemble(cfg.Problem, nf, rel, weights, edge, claim, cells, lo, hi, below, above)
 	if err != nil {
 		return nil, err
+	}
+	if cfg.Shards > 0 {
+		cert.Relaxation.Shard = &certificates.Shard{Index: cfg.Shard, Count: cfg.Shards,
+			Lo: regions.RatString(new(big.Rat).SetFloat64(-lo)), Hi: regions.RatString(new(big.Rat).SetFloat64(hi))}
+		cert.Relaxation.Below.From = cert.Relaxation.Shard.Lo
+		cert.Relaxation.Above.From = cert.Relaxation.Shard.Hi
 	}
 	out.Certificate = cert
 	out.Elapsed = time.Since(start)
