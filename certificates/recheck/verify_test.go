@@ -1,6 +1,7 @@
 package recheck
 
 import (
+	"math/big"
 	"strings"
 	"sync"
 	"testing"
@@ -60,7 +61,7 @@ func TestVerifyPasses(t *testing.T) {
 	if err != nil || !r.Pass {
 		t.Fatalf("exp: %v %+v", err, r)
 	}
-	if r.Recomputed == "" || r.Recomputed > "0.06" || r.Recomputed < "0.0526" {
+	if got, ok := new(big.Rat).SetString(r.Recomputed); !ok || got.Cmp(rat(t, "0.06")) > 0 || got.Cmp(rat(t, "0.05264")) < 0 {
 		t.Errorf("recomputed bound %q: should lie in [0.05265, 0.06]", r.Recomputed)
 	}
 }
@@ -124,5 +125,37 @@ func TestInadmissibleTerm(t *testing.T) {
 	r, _ := Verify(c, Options{})
 	if r.Pass || r.Failures[0].Where != "terms[0]" || !strings.Contains(r.Failures[0].Message, "xp >= 1/4") {
 		t.Fatalf("inadmissible term accepted: %+v", r.Failures)
+	}
+}
+
+// A problem whose vertex lies inside the half-plane with a ray parallel to
+// its boundary admits no quadrant-III profile: its normal form records the
+// threshold "none", the bare quadrant is still a valid relaxation, and any
+// term is inadmissible. (certificates.Decode does not yet accept "none";
+// this checks the verifier directly.)
+func TestNoAdmissibleProfile(t *testing.T) {
+	p := certificates.Problem{Vertex: [2]string{"0", "0"}, Rays: [2][2]string{{"1", "0"}, {"0", "1"}},
+		Halfplane: certificates.Halfplane{Normal: [2]string{"0", "1"}, Offset: "-1"}, Edge: "lower"}
+	c, err := BuildCertificate(BuildOptions{Problem: p, Bound: "0.1560", Lo: "-8", Hi: "8"})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if c.Relaxation.Normal.Threshold != NoThreshold {
+		t.Fatalf("threshold %q", c.Relaxation.Normal.Threshold)
+	}
+	r, _ := Verify(c, Options{})
+	if !r.Pass {
+		t.Fatalf("bare quadrant rejected: %+v", r.Failures)
+	}
+	c.Relaxation.Terms = []certificates.Term{{Kind: "exp", Params: map[string]string{"k": "150"}, Weight: "1"}}
+	r, _ = Verify(c, Options{})
+	if r.Pass || r.Failures[0].Where != "terms[0]" {
+		t.Fatalf("inadmissible term accepted: %+v", r.Failures)
+	}
+	c.Relaxation.Terms = nil
+	c.Relaxation.Normal.Threshold = "0"
+	r, _ = Verify(c, Options{})
+	if r.Pass || r.Failures[0].Where != "normal_form" {
+		t.Fatalf("wrong threshold accepted: %+v", r.Failures)
 	}
 }
