@@ -102,6 +102,10 @@ type expRegime[T interval.Real[T]] struct {
 // maxAbsS is the largest |s| a cover may reach.
 const maxAbsS = 1 << 30
 
+// termCache shares the terms (and so their quadrature regimes, which
+// depend only on k and the arithmetic) between models in one process.
+var termCache sync.Map
+
 func newExpTerm[T interval.Real[T]](like T, params map[string]string) (*expTerm[T], error) {
 	if len(params) != 1 {
 		return nil, errors.New(`the "exp" family takes exactly one parameter, k`)
@@ -120,6 +124,12 @@ func newExpTerm[T interval.Real[T]](like T, params map[string]string) (*expTerm[
 	lo, hi := big.NewRat(1, 1000000), big.NewRat(1000000, 1)
 	if k.Cmp(lo) < 0 || k.Cmp(hi) > 0 {
 		return nil, fmt.Errorf("exp parameter k = %s is outside the supported range [1e-6, 1e6]", ks)
+	}
+	key := fmt.Sprintf("%T/%d/%s", like, like.Prec(), k.String())
+	if v, ok := termCache.Load(key); ok {
+		if e, ok := v.(*expTerm[T]); ok {
+			return e, nil
+		}
 	}
 	rat := func(r *big.Rat) T { v, _ := like.Decimal(r.String()); return v }
 	k2 := new(big.Rat).Mul(k, k)
@@ -143,7 +153,8 @@ func newExpTerm[T interval.Real[T]](like T, params map[string]string) (*expTerm[
 	if !e.theta.IsFinite() || !mod.IsFinite() {
 		return nil, fmt.Errorf("exp parameter k = %s: constants not enclosed", ks)
 	}
-	return e, nil
+	v, _ := termCache.LoadOrStore(key, e)
+	return v.(*expTerm[T]), nil
 }
 
 // regimeIndex returns the regime of the exact piece [a, b]: 0 for
