@@ -74,6 +74,7 @@ func powInt[T interval.Real[T]](x T, n int) T {
 }
 
 type ccKey struct {
+	typ  string
 	prec uint
 	n    int
 }
@@ -89,7 +90,7 @@ func clenshawCurtis[T interval.Real[T]](like T, n int) (*ccRule[T], error) {
 	if n < 2 || n%2 != 0 {
 		return nil, fmt.Errorf("recheck: Clenshaw-Curtis needs an even n >= 2, not %d", n)
 	}
-	key := ccKey{like.Prec(), n}
+	key := ccKey{fmt.Sprintf("%T", like), like.Prec(), n}
 	ccMu.Lock()
 	defer ccMu.Unlock()
 	if r, ok := ccCache[key]; ok {
