@@ -35,8 +35,9 @@ type ccRule[T interval.Real[T]] struct {
 //
 //	2 m (W + 2/((n+2)^2 - 1)) / (rho^n (rho^2 - 1)),  W = sum_j |w_j|.
 //
-// Proof (the argument of L. N. Trefethen, SIAM Review 50 (2008) 67-87,
-// section 5, with constants of our own). The Chebyshev coefficients of such
+// Proof (the aliasing argument of L. N. Trefethen, "Is Gauss quadrature
+// better than Clenshaw-Curtis?", SIAM Review 50 (2008), with constants
+// derived here; page and theorem numbers from memory, not checked). The Chebyshev coefficients of such
 // an f satisfy |a_k| <= 2 m rho^{-k} for k >= 1 (write
 // a_k = (1/(pi i)) closed-integral of F(z) z^{-k-1} dz over |z| = r,
 // F(z) = f((z + 1/z)/2), and let r increase to rho), so f = sum a_k T_k
@@ -47,8 +48,9 @@ type ccRule[T interval.Real[T]] struct {
 // int T_{k'} = 0 = int T_k. For even k >= n+2, |int T_k| = 2/(k^2 - 1) and
 // |sum w_j T_k(x_j)| <= W, hence
 // |E(f)| <= sum_{k even >= n+2} 2 m rho^{-k} (W + 2/((n+2)^2 - 1)), a
-// geometric series equal to the bound. (Trefethen's Theorem 5.1 states the
-// same rate with the constant 64/15 for W = 2.)
+// geometric series equal to the bound. (Trefethen's bound has the same
+// form with the constant 64/15 in place of 2(W + ...) = 4 + ..., from
+// memory.)
 func (r *ccRule[T]) bound(m, rho T) T {
 	n := r.n
 	eps := m.Frac(2, int64((n+2)*(n+2)-1))
