@@ -37,8 +37,9 @@ type ccRule[T interval.Real[T]] struct {
 //
 // Proof (the aliasing argument of L. N. Trefethen, "Is Gauss quadrature
 // better than Clenshaw-Curtis?", SIAM Review 50 (2008), with constants
-// derived here; page and theorem numbers from memory, not checked). The Chebyshev coefficients of such
-// an f satisfy |a_k| <= 2 m rho^{-k} for k >= 1 (write
+// derived here; page and theorem numbers from memory, not checked). The
+// Chebyshev coefficients of such an f satisfy |a_k| <= 2 m rho^{-k} for
+// k >= 1 (write
 // a_k = (1/(pi i)) closed-integral of F(z) z^{-k-1} dz over |z| = r,
 // F(z) = f((z + 1/z)/2), and let r increase to rho), so f = sum a_k T_k
 // converges uniformly on [-1, 1] and the error functional E may be applied
