@@ -28,7 +28,7 @@ type ccRule[T interval.Real[T]] struct {
 	wabs T
 }
 
-// ccBound returns an upper bound on |int_{-1}^{1} f - sum_j w_j f(x_j)| for
+// bound returns an upper bound on |int_{-1}^{1} f - sum_j w_j f(x_j)| for
 // every f analytic in the open Bernstein ellipse E_rho (foci -1 and 1,
 // semi-axes (rho + 1/rho)/2 and (rho - 1/rho)/2, rho > 1) with |f| <= m
 // there:
