@@ -75,6 +75,10 @@ type NormalForm struct {
 	Threshold string    `json:"threshold"`
 }
 
+// NoThreshold is the threshold recorded when no quadrant-III profile is
+// admissible (d > 0 and a b = 0).
+const NoThreshold = "none"
+
 // Term is one weighted relaxation region in quadrant III, a profile h(xp).
 // Kind names the family (for example "exp" for h = e^{-k xp}); Params holds
 // its exact parameters by name; Weight is the exact real weight.
@@ -152,8 +156,13 @@ func (r *Relaxation) validate() error {
 			return err
 		}
 	}
-	for _, f := range []struct{ v, n string }{{r.Normal.A, "normal_form.a"}, {r.Normal.B, "normal_form.b"}, {r.Normal.D, "normal_form.d"}, {r.Normal.Threshold, "normal_form.threshold"}} {
+	for _, f := range []struct{ v, n string }{{r.Normal.A, "normal_form.a"}, {r.Normal.B, "normal_form.b"}, {r.Normal.D, "normal_form.d"}} {
 		if _, err := Frac(f.v, f.n); err != nil {
+			return err
+		}
+	}
+	if r.Normal.Threshold != NoThreshold {
+		if _, err := Frac(r.Normal.Threshold, "normal_form.threshold"); err != nil {
 			return err
 		}
 	}

@@ -5,8 +5,10 @@ import (
 	"fmt"
 	"math"
 	"math/big"
+	"runtime"
 	"sort"
 	"strings"
+	"sync"
 	"time"
 
 	"wedgebound/certificates"
@@ -116,7 +118,10 @@ func Run(cfg Config) (*Outcome, error) {
 	rel := regions.Relaxation[interval.F]{Terms: terms, Weights: w}
 	if math.IsNaN(candidate) {
 		// Weights given (or no terms): estimate the candidate from a scan.
-		candidate = scanCandidate(rel, edge)
+		candidate = scanCandidate(rel, edge, cfg.Workers)
+	}
+	if math.IsNaN(candidate) {
+		return nil, errors.New("could not evaluate the candidate weights")
 	}
 	margin := cfg.Margin
 	if margin == 0 {
@@ -127,6 +132,7 @@ func Run(cfg Config) (*Outcome, error) {
 	if err != nil {
 		return nil, err
 	}
+	warmUp(rel, lo, hi, cfg.Workers)
 	grid := regimeGrid(lo, hi)
 	if cfg.Shards > 0 {
 		if cfg.Shard < 0 || cfg.Shard >= cfg.Shards || cfg.Shards > len(grid)-1 {
@@ -188,6 +194,42 @@ func Run(cfg Config) (*Outcome, error) {
 	return out, nil
 }
 
+// warmUp builds every term's quadrature set-up for [-lo, hi] in parallel
+// (each term builds one s-range at a time, which would otherwise serialise
+// the first cells of the cover). It only affects speed.
+func warmUp(rel regions.Relaxation[interval.F], lo, hi float64, workers int) {
+	if workers <= 0 {
+		workers = runtime.GOMAXPROCS(0)
+	}
+	pts := []float64{0}
+	for m := 1.5; m/1.5 < math.Max(lo, hi); m *= 2 {
+		if m/1.5 < hi {
+			pts = append(pts, m)
+		}
+		if m/1.5 < lo {
+			pts = append(pts, -m)
+		}
+	}
+	jobs := make(chan func())
+	var wg sync.WaitGroup
+	for range workers {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			for j := range jobs {
+				j()
+			}
+		}()
+	}
+	for _, t := range rel.Terms {
+		for _, p := range pts {
+			jobs <- func() { t.Enclose(interval.PointF(p)) }
+		}
+	}
+	close(jobs)
+	wg.Wait()
+}
+
 // edgeValue turns an eigenvalue enclosure into the bound it proves: for edge
 // lower -lambda_min <= -lo, for edge upper lambda_max <= hi. The float64
 // endpoints of F are exact, so no rounding happens here.
@@ -208,15 +250,26 @@ func roundUp(v float64, n int) *big.Rat {
 	return r
 }
 
-// scanCandidate estimates the bound of fixed weights by point evaluations.
-func scanCandidate(rel regions.Relaxation[interval.F], e regions.Edge) float64 {
-	best := math.Inf(-1)
-	for i := -4000; i <= 4000; i++ {
-		s := float64(i) / 100
-		v := edgeValue(rel.Enclose(interval.PointF(s)).Eig(e), e)
-		best = math.Max(best, v)
+// scanCandidate estimates the bound of fixed weights with the float search's
+// evaluation of the given weights (no optimisation; the weights are kept).
+func scanCandidate(rel regions.Relaxation[interval.F], e regions.Edge, workers int) float64 {
+	if len(rel.Terms) == 0 {
+		best := math.Inf(-1)
+		for i := -800; i <= 800; i++ {
+			v := edgeValue(rel.Enclose(interval.PointF(float64(i)/100)).Eig(e), e)
+			best = math.Max(best, v)
+		}
+		return best
 	}
-	return best
+	init := make([]float64, len(rel.Weights))
+	for i, w := range rel.Weights {
+		init[i] = (w.Lo() + w.Hi()) / 2
+	}
+	res, err := Search(rel.Terms, e, SearchOptions{MaxIter: -1, Initial: init, Digits: 17, Workers: workers})
+	if err != nil {
+		return math.NaN()
+	}
+	return res.Bound
 }
 
 // coverRange returns integers lo, hi > 0 such that the tail lemmas prove the
@@ -298,7 +351,7 @@ func assemble(p regions.Problem, nf regions.Normal, rel regions.Relaxation[inter
 		Edge: string(p.Edge),
 	}
 	u0, ok := nf.Threshold()
-	thr := "none"
+	thr := certificates.NoThreshold
 	if ok {
 		thr = regions.RatString(u0)
 	}

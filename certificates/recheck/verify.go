@@ -159,6 +159,10 @@ func (v *verifier) note(s string) {
 
 func (v *verifier) run() {
 	rel := v.rel
+	if sh := rel.Shard; sh != nil {
+		v.fail(Failure{Where: "shard", Message: fmt.Sprintf("partial certificate (shard %d of %d): its cells cover only part of [%s, %s], so it proves nothing on its own; join all shards with wedgebound merge", sh.Index+1, sh.Count, sh.Lo, sh.Hi)})
+		return
+	}
 	v.edge = Edge(rel.Claim.Edge)
 	if v.edge != Lower && v.edge != Upper {
 		v.fail(Failure{Where: "claim", Message: fmt.Sprintf("claim.edge must be %q or %q, not %q", Lower, Upper, rel.Claim.Edge)})
