@@ -141,12 +141,14 @@ func rat(s string) *big.Rat {
 func (it reportItem) consistent() error {
 	r := it.rel
 	thr, ok := threshold(r.Normal)
-	if !ok {
-		if len(r.Terms) > 0 {
-			return fmt.Errorf("a b = 0 with d > 0 leaves no room for profiles, yet the certificate has %d terms", len(r.Terms))
-		}
-	} else if thr.Cmp(rat(r.Normal.Threshold)) != 0 {
-		return fmt.Errorf("the recorded threshold %s is not d^2/(4ab) = %s", r.Normal.Threshold, regions.RatString(thr))
+	recorded := r.Normal.Threshold
+	switch {
+	case !ok && recorded != certificates.NoThreshold:
+		return fmt.Errorf("the recorded threshold is %s, but a b = 0 < d leaves no admissible profile (threshold %s)", recorded, certificates.NoThreshold)
+	case !ok && len(r.Terms) > 0:
+		return fmt.Errorf("a b = 0 < d leaves no room for profiles, yet the certificate has %d terms", len(r.Terms))
+	case ok && (recorded == certificates.NoThreshold || thr.Cmp(rat(recorded)) != 0):
+		return fmt.Errorf("the recorded threshold %s is not d^2/(4ab) = %s", recorded, regions.RatString(thr))
 	}
 	for i, t := range r.Terms {
 		if t.Kind == "exp" && (!ok || thr.Sign() != 0) {
@@ -741,11 +743,12 @@ func writeSummary(b *strings.Builder, it reportItem) {
 			fmt.Fprintf(b, "  %2d. %s%s, %s, weight %s\n", i+1, t.Kind, form, strings.Join(kv, ", "), t.Weight)
 		}
 	}
-	thr := "none"
+	adm := "A point (-t, -u/t) of quadrant III, t > 0, lies outside H' for every t exactly when 2 sqrt(a b u) >= d, "
 	if u, ok := threshold(n); ok {
-		thr = regions.RatString(u)
+		adm += fmt.Sprintf("so the free part of quadrant III is xp >= d^2/(4ab) = %s (the recorded threshold, recomputed here from a, b, d).", regions.RatString(u))
+	} else {
+		adm += "so with a b = 0 < d no hyperbola xp = u of quadrant III is free and no profile is admissible (recorded threshold none)."
 	}
-	adm := fmt.Sprintf("A point (-t, -u/t) of quadrant III, t > 0, lies outside H' for every t exactly when 2 sqrt(a b u) >= d, so the free part of quadrant III is xp >= d^2/(4ab) = %s (recorded threshold %s, recomputed here from a, b, d).", thr, n.Threshold)
 	switch {
 	case len(r.Terms) == 0:
 		adm += " There are no profiles, so g = chi_Q."

@@ -266,6 +266,39 @@ func TestReportPartial(t *testing.T) {
 	}
 }
 
+// With a b = 0 < d no profile is admissible (MATH.md section 2): a bare
+// quadrant certificate with threshold none is reported, one with terms is
+// refused. Formatting fixtures built from the shipped certificate.
+func TestReportNoThreshold(t *testing.T) {
+	dir := t.TempDir()
+	noRoom := func(r *certificates.Relaxation) {
+		r.Normal.A, r.Normal.D, r.Normal.Threshold = "0", "1", certificates.NoThreshold
+	}
+	bare := writeVariant(t, dir, "bare.json", func(r *certificates.Relaxation) { noRoom(r); r.Terms = nil })
+	code, out, errs := report(bare)
+	if code != 0 {
+		t.Fatalf("exit %d: %s", code, errs)
+	}
+	flat := strings.Join(strings.Fields(out), " ")
+	for _, want := range []string{"No profiles: g = chi_Q", "no profile is admissible (recorded threshold none)"} {
+		if !strings.Contains(flat, want) {
+			t.Errorf("summary lacks %q", want)
+		}
+	}
+	_, md, _ := report("--format", "markdown", bare)
+	if _, rows := parseTable(t, md); rows[0][1] != "none (bare quadrant)" {
+		t.Errorf("family cell %q", rows[0][1])
+	}
+	withTerms := writeVariant(t, dir, "terms.json", noRoom)
+	if code, _, errs := report(withTerms); code != 1 || !strings.Contains(errs, "no room for profiles") {
+		t.Errorf("terms without room: exit %d, %q", code, errs)
+	}
+	wrong := writeVariant(t, dir, "wrong.json", func(r *certificates.Relaxation) { r.Normal.Threshold = "0.5" })
+	if code, _, errs := report(wrong); code != 1 || !strings.Contains(errs, "is not d^2/(4ab) = 0") {
+		t.Errorf("wrong threshold: exit %d, %q", code, errs)
+	}
+}
+
 func TestReportDeterministic(t *testing.T) {
 	for _, f := range []string{"text", "markdown", "latex"} {
 		_, a, _ := report("--format", f, shippedCert, shippedCert)
