@@ -254,6 +254,39 @@ func TestRunOneExp(t *testing.T) {
 			t.Errorf("lambda_min(%v) = %v below the claimed -%v", s, v, b)
 		}
 	}
+	// Dense float scan (not a proof; a phantom-bound detector): lambda_min
+	// from the float entries on s in [-40, 40] with step 0.002 and on
+	// log-spaced points out to |s| = 5000 never drops below -bound, and the
+	// scanned minimum is within the margin of the claim.
+	wf := mustF(ratOf(t, r.Terms[0].Weight))
+	lam := func(s float64) float64 {
+		d, bb := term.Approx(s)
+		a := quadrantAFloat(s)
+		bt := quadrantB0Float(s) + complex(wf, 0)*bb
+		dd := wf * d
+		return (a+dd)/2 - math.Sqrt((a-dd)*(a-dd)/4+real(bt)*real(bt)+imag(bt)*imag(bt))
+	}
+	minScan := math.Inf(1)
+	var pts []float64
+	for i := -20000; i <= 20000; i++ {
+		pts = append(pts, float64(i)*0.002)
+	}
+	for x := 40.0; x < 5000; x *= 1.01 {
+		pts = append(pts, x, -x)
+	}
+	for _, s := range pts {
+		if v := lam(s); v < minScan {
+			minScan = v
+		}
+		if v := lam(s); v < -b {
+			t.Errorf("float lambda_min(%v) = %v below the claimed -%v", s, v, b)
+			break
+		}
+	}
+	if -minScan < b-3e-4 {
+		t.Errorf("scanned minimum %v is more than the margin above -bound %v", minScan, -b)
+	}
+	t.Logf("dense float scan: min lambda_min = %.7f (claim -%v)", minScan, b)
 }
 
 // TestRunReposed checks that metaplectically equivalent geometries give
@@ -287,17 +320,25 @@ func TestRunReposed(t *testing.T) {
 }
 
 // TestRunZeroWeights: a relaxation with all weights zero is the bare
-// quadrant, so it must reproduce the quadrant claim exactly. Slow (the
-// candidate scan evaluates 8001 certified point symbols; about a minute),
-// so it runs with WEDGEBOUND_SLOW=1.
+// quadrant, so it must reproduce the quadrant bound: both claims are proved
+// upper bounds of the same number 0.15593984319... (MATH.md section 4), and
+// each lies within the cover's aim (candidate + margin) above it, so they
+// agree to within the margin. (They need not be byte-identical: the bare
+// quadrant's candidate comes from a 0.01-step scan, 0.1559326, the
+// zero-weight one from the search model, 0.1559398, so the covers aim at
+// different targets.)
 func TestRunZeroWeights(t *testing.T) {
-	if os.Getenv("WEDGEBOUND_SLOW") != "1" {
-		t.Skip("slow (about 66 s); set WEDGEBOUND_SLOW=1")
-	}
 	q := runOnce(t, "quadrant", Config{Problem: regions.Presets["backflow"], Margin: quadrantMargin, Workers: 2})
 	o := runOnce(t, "exp150-zero", Config{Problem: regions.Presets["backflow"], Ks: []string{"150"}, Weights: []string{"0"}, Margin: quadrantMargin, Workers: 2})
+	zb, qb := mustF(o.Bound), mustF(q.Bound)
+	if zb < quadrant20 || zb > quadrant20+quadrantMargin+1e-5 {
+		t.Errorf("zero weights: claim %v, want in [%v, %v]", zb, quadrant20, quadrant20+quadrantMargin+1e-5)
+	}
+	if math.Abs(zb-qb) > quadrantMargin {
+		t.Errorf("zero weights: claim %v, bare quadrant %v: differ by more than the margin", zb, qb)
+	}
 	if o.Certificate.Relaxation.Claim.Bound != q.Certificate.Relaxation.Claim.Bound {
-		t.Errorf("zero weights: claim %s, bare quadrant %s", o.Certificate.Relaxation.Claim.Bound, q.Certificate.Relaxation.Claim.Bound)
+		t.Logf("zero weights: claim %s, bare quadrant %s (not byte-identical)", o.Certificate.Relaxation.Claim.Bound, q.Certificate.Relaxation.Claim.Bound)
 	}
 	checkCertificate(t, o)
 }
