@@ -191,6 +191,9 @@ func (r *Relaxation) validate() error {
 	if _, err := Dec(r.Claim.Bound, "claim.bound"); err != nil {
 		return err
 	}
+	if r.Claim.Statement == "" {
+		return errors.New("claim.statement: missing")
+	}
 	if r.PrecisionBits < 53 || r.PrecisionBits > 65536 {
 		return fmt.Errorf("precision_bits %d is outside [53, 65536]", r.PrecisionBits)
 	}

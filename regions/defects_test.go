@@ -17,7 +17,6 @@ import (
 // user would not expect, and certificates.Frac reads "1/010" as 1/10. Each
 // such string must be rejected with an error (or at least read in base 10).
 func TestParseRatDecimalOnly(t *testing.T) {
-	t.Skip("open defect: regions.ParseRat accepts base prefixes (0x10 = 16, 1/010 = 1/8); remove this Skip once fixed")
 	for _, c := range []struct {
 		in     string
 		base10 *big.Rat
@@ -41,7 +40,6 @@ func TestParseRatDecimalOnly(t *testing.T) {
 // Remedy: a delta of 2^-(prec+48) (Newton runs at prec+64 bits), or the
 // weight at the node midpoint plus a derivative bound times delta.
 func TestGaussWeightWidth(t *testing.T) {
-	t.Skip("open defect: 53-bit Gauss-Legendre weights have relative radius up to 2e-10 (delta = 2^-(prec+8) too wide); remove this Skip once fixed")
 	r, err := gaussLegendre(interval.PointF(0), 20)
 	if err != nil {
 		t.Fatal(err)

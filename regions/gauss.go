@@ -44,7 +44,7 @@ func gaussLegendre[T interval.Real[T]](like T, n int) (gaussRule[T], error) {
 	half := n / 2
 	xs := make([]interval.B, n)
 	ws := make([]interval.B, n)
-	delta := b.Int(1).Scale(-int(like.Prec()) - 8)
+	delta := b.Int(1).Scale(-int(like.Prec()) - 30)
 	deriv := func(x, pn, pn1 interval.B) interval.B {
 		// P_n'(x) = n (x P_n - P_{n-1}) / (x^2 - 1)
 		return x.Mul(pn).Sub(pn1).Mul(x.Int(int64(n))).Quo(x.Sqr().Sub(x.Int(1)))

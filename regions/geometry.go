@@ -133,9 +133,20 @@ func ParseRat(s string) (*big.Rat, error) {
 			return nil, fmt.Errorf("number %q has an exponent out of range [-1000, 1000]", t)
 		}
 	}
-	r, ok := new(big.Rat).SetString(t)
-	if !ok {
+	if strings.Trim(t, "0123456789.eE+-/") != "" {
+		return nil, fmt.Errorf("%q is not a finite number (a decimal or a fraction p/q)", t)
+	}
+	num, den, isFrac := strings.Cut(t, "/")
+	r, ok := new(big.Rat).SetString(num)
+	if !ok || strings.ContainsAny(den, ".eE+-") {
 		return nil, fmt.Errorf("%q is not a finite number", t)
+	}
+	if isFrac {
+		d, ok := new(big.Int).SetString(den, 10)
+		if !ok || d.Sign() == 0 {
+			return nil, fmt.Errorf("%q is not a finite number (bad or zero denominator)", t)
+		}
+		r.Quo(r, new(big.Rat).SetInt(d))
 	}
 	return r, nil
 }
