@@ -35,7 +35,7 @@ func runSpectrum(args []string, stdout, stderr io.Writer) int {
 	fs.SetOutput(stderr)
 	quadrant := fs.Bool("quadrant", false, "the bare quadrant {x > 0, p > 0}")
 	termsFile := fs.String("terms", "", "JSON file with relaxation terms [{\"kind\":..., \"params\":{...}, \"weight\":...}] added in quadrant III")
-	digits := fs.Int("digits", 12, "significant digits wanted (1..60)")
+	digits := fs.Int("digits", 12, "significant digits wanted (1..60 for --quadrant, default 12; 1..5 with --terms, default 4)")
 	asJSON := fs.Bool("json", false, "print JSON with fields inf and sup")
 	fs.Usage = func() {
 		fmt.Fprintln(stderr, "usage: wedgebound spectrum (--quadrant | --terms FILE) [--digits N] [--json]")
@@ -55,6 +55,9 @@ func runSpectrum(args []string, stdout, stderr io.Writer) int {
 		fmt.Fprintln(stderr, "wedgebound spectrum: give exactly one of --quadrant and --terms FILE")
 		return 2
 	}
+	if *termsFile != "" && !fs.Changed("digits") {
+		*digits = 4
+	}
 	if *digits < 1 || *digits > 60 {
 		fmt.Fprintf(stderr, "wedgebound spectrum: --digits %d is outside 1..60\n", *digits)
 		return 2
@@ -70,9 +73,9 @@ func runSpectrum(args []string, stdout, stderr io.Writer) int {
 		}
 	} else {
 		// With terms the cells use direct float64-interval enclosures, which
-		// settle about 8 digits within the cell budget.
-		if *digits > 8 {
-			fmt.Fprintf(stderr, "wedgebound spectrum: with --terms at most 8 digits are supported, not %d\n", *digits)
+		// settle a few digits within the cell budget.
+		if *digits > 5 {
+			fmt.Fprintf(stderr, "wedgebound spectrum: with --terms at most 5 digits are supported, not %d\n", *digits)
 			return 2
 		}
 		data, err := os.ReadFile(*termsFile)
@@ -125,7 +128,11 @@ func spectrum[T interval.Real[T]](like T, rel regions.Relaxation[T], digits int,
 	}
 	S := like.Int(Sv)
 	var out [2]T
-	eps, _ := like.Decimal(fmt.Sprintf("1e-%d", digits+3))
+	extra := 3
+	if !quadrant {
+		extra = 1
+	}
+	eps, _ := like.Decimal(fmt.Sprintf("1e-%d", digits+extra))
 	minW := new(big.Rat).SetFrac(big.NewInt(1), new(big.Int).Exp(big.NewInt(10), big.NewInt(int64(digits/2+8)), nil))
 	for i, e := range []regions.Edge{regions.Lower, regions.Upper} {
 		point := func(s T) T { return rel.Enclose(s).Eig(e) }
