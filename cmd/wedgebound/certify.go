@@ -24,7 +24,7 @@ func runCertify(args []string, stdout, stderr io.Writer) int {
 	preset := fs.String("preset", "", "named problem: "+strings.Join(regions.PresetNames(), ", "))
 	problemFile := fs.String("problem", "", "JSON problem file {\"vertex\", \"rays\", \"halfplane\", \"edge\"}")
 	out := fs.String("out", "", "certificate file to write (required)")
-	exps := fs.String("exp", "0.13,0.79,5.3,1000", "comma-separated decay rates k of the exponential profiles e^{-k xp} (\"none\" for the bare quadrant)")
+	exps := fs.String("exp", "0.03,0.13,0.79,5.3,40,300,1000,3000", "comma-separated decay rates k of the exponential profiles e^{-k xp} (\"none\" for the bare quadrant)")
 	weights := fs.String("weights", "", "comma-separated exact weights for the profiles (default: searched)")
 	weightBound := fs.Float64("weight-bound", 0, "bound on the searched weights (default max(50, k_max/15))")
 	margin := fs.Float64("margin", 2e-5, "how far above the float candidate the cover aims")
