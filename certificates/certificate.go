@@ -212,7 +212,10 @@ func Dec(s, name string) (*big.Rat, error) {
 		return nil, fmt.Errorf("%s: missing number", name)
 	}
 	if t != s || len(t) > 20000 || strings.Trim(t, "0123456789.eE+-") != "" {
-		return nil, fmt.Errorf("%s: %.40q is not a finite decimal number", name, s)
+		if strings.ContainsAny(strings.ToLower(t), "ni") { // NaN, Inf, Infinity
+			return nil, fmt.Errorf("%s: %.40q is not a finite decimal number", name, s)
+		}
+		return nil, fmt.Errorf("%s: %.40q is not a plain decimal number", name, s)
 	}
 	if i := strings.IndexAny(t, "eE"); i >= 0 {
 		var e int
