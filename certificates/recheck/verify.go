@@ -86,6 +86,9 @@ type Result struct {
 	// (structure, then s increasing).
 	Failures []Failure     `json:"failures,omitempty"`
 	Elapsed  time.Duration `json:"elapsed_ns"`
+	// Strip holds the details of a strip-bracket verification (nil for
+	// other kinds).
+	Strip *StripResult `json:"strip,omitempty"`
 }
 
 // Verify recomputes everything the claim of c rests on. It returns an error
@@ -93,8 +96,11 @@ type Result struct {
 // every failed claim is reported in the result.
 func Verify(c *certificates.Certificate, opt Options) (*Result, error) {
 	start := time.Now()
+	if c.Kind == certificates.KindStrip && c.Strip != nil {
+		return verifyStrip(c, opt, start)
+	}
 	if c.Kind != certificates.KindRelaxation || c.Relaxation == nil {
-		return nil, fmt.Errorf("certificate kind %q is %w (it checks %q)", c.Kind, ErrUnsupported, certificates.KindRelaxation)
+		return nil, fmt.Errorf("certificate kind %q is %w (it checks %q and %q)", c.Kind, ErrUnsupported, certificates.KindRelaxation, certificates.KindStrip)
 	}
 	if opt.Workers <= 0 {
 		opt.Workers = runtime.GOMAXPROCS(0)

@@ -59,10 +59,11 @@ func runStrip(args []string, stdout, stderr io.Writer) int {
 	digits := fs.Int("digits", 12, "significant digits of the printed brackets (1..17)")
 	asJSON := fs.Bool("json", false, "print the full result as JSON (fields alpha, advantage, deficit, witnesses, errors)")
 	save := fs.String("save", "", "also write the JSON result to this file")
+	out := fs.String("out", "", "also write a strip-bracket certificate to this file (check it with wedgecheck)")
 	var in stripInput
 	in.add(fs)
 	fs.Usage = func() {
-		fmt.Fprintln(stderr, "usage: wedgebound strip (--alpha A | --mass M --length L --time T) [--width W] [--digits D] [--json] [--save FILE]")
+		fmt.Fprintln(stderr, "usage: wedgebound strip (--alpha A | --mass M --length L --time T) [--width W] [--digits D] [--json] [--save FILE] [--out FILE]")
 		fs.PrintDefaults()
 	}
 	if err := fs.Parse(args); err != nil {
@@ -115,6 +116,16 @@ func runStrip(args []string, stdout, stderr io.Writer) int {
 	}
 	if *save != "" {
 		if err := certificates.WriteAtomic(*save, js); err != nil {
+			fmt.Fprintf(stderr, "wedgebound strip: %v\n", err)
+			return 1
+		}
+	}
+	if *out != "" {
+		c, err := res.Certificate()
+		if err == nil {
+			err = certificates.WriteFile(*out, c)
+		}
+		if err != nil {
 			fmt.Fprintf(stderr, "wedgebound strip: %v\n", err)
 			return 1
 		}

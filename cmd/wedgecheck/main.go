@@ -5,6 +5,9 @@
 // wedgebound/certificates/recheck, which shares only the interval library
 // and the certificate schema with the certifier) an enclosure of the
 // extreme eigenvalue of the Mellin symbol on every cell and on both tails.
+// For a strip-bracket certificate it re-derives alpha, the witnesses'
+// Rayleigh quotients, the discarded part and both Galerkin eigenvalue
+// bounds with its own quadrature and eigenvalue proofs.
 //
 // Usage:
 //
@@ -15,8 +18,7 @@
 // how much, and whether the claim is shown false or only not proved).
 // Exit status: 0 when every file passes, 1 when any claim fails (a stale
 // hash included), 2 when a file cannot be read, is not a well-formed
-// certificate, or is of a kind this version does not check (strip-bracket
-// certificates are not supported yet).
+// certificate, or is of a kind this version does not check.
 //
 // Referee workflow:
 //
@@ -223,6 +225,10 @@ func printText(w io.Writer, r fileReport) {
 		return
 	}
 	res := r.Result
+	if res.Strip != nil {
+		printStripText(w, r)
+		return
+	}
 	fmt.Fprintf(w, "      problem: %s\n", res.Problem)
 	if res.Pass {
 		fmt.Fprintf(w, "      proved:  %s\n", res.Statement)

@@ -1,0 +1,604 @@
+package recheck
+
+import (
+	"fmt"
+	"math"
+	"math/big"
+	"runtime"
+	"strings"
+	"time"
+
+	"wedgebound/certificates"
+	"wedgebound/interval"
+)
+
+// Verification of strip-bracket certificates.
+//
+// A strip certificate (certificates.Strip) claims brackets of both spectral
+// edges of K_alpha, which is unitarily equivalent to the real symmetric
+// kernel k(x, y) = -sin(alpha (x^2-y^2)/4)/(pi (x - y)) on L^2[-1, 0]. The
+// verifier re-derives, with its own numerics (Clenshaw-Curtis instead of
+// the certifier's Gauss-Legendre rule, its own kernel bounds on ellipses,
+// its own eigenvalue proofs):
+//
+//  1. alpha from its exact value (or from the physical units), the recorded
+//     enclosure of alpha, and alpha_rounding >= |alpha - alpha_used|/(2 pi)
+//     (strip_alpha.go);
+//  2. for both witnesses, an enclosure of the Rayleigh quotient
+//     <psi, k psi>/sum c_j^2 at alpha_used (the rule at [(strip_rule.go)],
+//     exact dot products, and a remainder bound of its own); then
+//     advantage.lower <= max(-(R_min + e), 0) and
+//     deficit.lower <= max(R_max - e, 0), because
+//     inf spec k <= R_min, sup spec k >= R_max (variational principle),
+//     inf spec k <= 0 <= sup spec k (k is compact on an infinite-dimensional
+//     space), and ||K_alpha - K_alpha_used|| <= e;
+//  3. discarded_part >= ||k - P k P|| by its own Chebyshev-coefficient bound
+//     (tailF) with its own maximum of |k| on the recorded ellipses (or on
+//     ellipses of its own choosing when those do not suffice);
+//  4. galerkin_lowest <= lambda_min(G) and lambda_max(G) <= galerkin_highest
+//     for the exact Galerkin matrix G (strip_galerkin.go), or a refutation by
+//     a witness (lambda_min(G) <= R_min, lambda_max(G) >= R_max, since the
+//     witnesses lie in the range of P);
+//  5. advantage.upper >= -(min(galerkin_lowest, 0) - t - e) and
+//     deficit.upper >= max(galerkin_highest, 0) + t + e, since P k P has
+//     spectrum spec(G) and 0, and Weyl's inequality moves the edges by at
+//     most t = discarded_part and e = alpha_rounding.
+//
+// Cost: the rule has about 2N + O(alpha) nodes M for basis size N; the
+// kernel matrix is M^2 interval evaluations and the product U^T A U about
+// N M^2 exact multiply-adds; the Cholesky proofs are O(N^3).
+
+// StripResult is the outcome of verifying a strip certificate.
+type StripResult struct {
+	Alpha     string `json:"alpha"`
+	BasisSize int    `json:"basis_size"`
+	// RuleNodes is the number of Clenshaw-Curtis nodes the verifier used
+	// per variable.
+	RuleNodes int                       `json:"rule_nodes"`
+	Advantage certificates.StripBracket `json:"advantage"`
+	Deficit   certificates.StripBracket `json:"deficit"`
+	// AdvantageProved and DeficitProved are the brackets the verifier's own
+	// numbers prove (an end is empty when its proof failed).
+	AdvantageProved certificates.StripBracket `json:"advantage_proved"`
+	DeficitProved   certificates.StripBracket `json:"deficit_proved"`
+	// AdvantageRayleigh and DeficitRayleigh are the verifier's enclosures of
+	// the witnesses' Rayleigh quotients.
+	AdvantageRayleigh certificates.StripBracket `json:"advantage_rayleigh"`
+	DeficitRayleigh   certificates.StripBracket `json:"deficit_rayleigh"`
+	// Discarded is the verifier's bound on ||k - P k P||.
+	Discarded string `json:"discarded"`
+	// GalerkinDistance bounds the distance of the verifier's float Galerkin
+	// matrix to the exact one; LowestProved and HighestProved are its
+	// proved bounds on lambda_min(G) and lambda_max(G).
+	GalerkinDistance string `json:"galerkin_distance"`
+	LowestProved     string `json:"lowest_proved"`
+	HighestProved    string `json:"highest_proved"`
+	// Seconds lists the time of each stage.
+	Seconds map[string]float64 `json:"seconds"`
+}
+
+// Strip verifier limits: the largest alpha_used and rule it attempts.
+const (
+	stripMaxAlpha = 1e6
+	stripMaxNodes = 12000
+)
+
+// Targets of the verifier's own quadrature remainders (absolute).
+const (
+	stripTargetGalerkin = 1e-16
+	stripTargetWitness  = 1e-20
+)
+
+type stripVerifier struct {
+	s     *certificates.Strip
+	opt   Options
+	res   *Result
+	sr    *StripResult
+	alpha interval.B
+	start time.Time
+	stage time.Time
+}
+
+func (v *stripVerifier) fail(f Failure) { v.res.Failures = append(v.res.Failures, f) }
+
+func (v *stripVerifier) note(s string) { v.res.Notes = append(v.res.Notes, s) }
+
+func (v *stripVerifier) lap(name string) {
+	now := time.Now()
+	v.sr.Seconds[name] = now.Sub(v.stage).Seconds()
+	v.stage = now
+}
+
+// verifyStrip checks a strip-bracket certificate (see the comment above).
+func verifyStrip(c *certificates.Certificate, opt Options, start time.Time) (*Result, error) {
+	if opt.Workers <= 0 {
+		opt.Workers = runtime.GOMAXPROCS(0)
+	}
+	s := c.Strip
+	v := &stripVerifier{s: s, opt: opt, start: start, stage: start,
+		res: &Result{Problem: stripDescribe(s), Bound: s.Advantage.Lower},
+		sr:  &StripResult{Alpha: s.Alpha.Value, BasisSize: s.BasisSize, Advantage: s.Advantage, Deficit: s.Deficit, Seconds: map[string]float64{}}}
+	v.res.Strip = v.sr
+	v.res.Statement = fmt.Sprintf("A(alpha) = -inf spec K_alpha in [%s, %s] and sup spec K_alpha in [%s, %s]",
+		s.Advantage.Lower, s.Advantage.Upper, s.Deficit.Lower, s.Deficit.Upper)
+	v.run()
+	v.res.Pass = len(v.res.Failures) == 0
+	v.res.Elapsed = time.Since(start)
+	return v.res, nil
+}
+
+// rat parses a field the schema has already validated.
+func (v *stripVerifier) rat(s string) *big.Rat {
+	r, err := certificates.Dec(s, "")
+	if err != nil {
+		return new(big.Rat)
+	}
+	return r
+}
+
+func ratOfFloat(x float64) *big.Rat { r, _ := new(big.Float).SetFloat64(x).Rat(nil); return r }
+
+func (v *stripVerifier) run() {
+	s := v.s
+	q, ok := v.checkAlpha()
+	v.lap("alpha")
+	if !ok {
+		return
+	}
+	// eps: the verifier's own bound on ||K_alpha - K_alpha_used||.
+	_, qh := q.Endpoints()
+	epsOwn, _ := qh.Rat(nil)
+	e := v.rat(s.Errors.AlphaRounding)
+	t := v.rat(s.Errors.DiscardedPart)
+	gl := v.rat(s.GalerkinLowest)
+	gh := v.rat(s.GalerkinHighest)
+
+	au := v.rat(s.AlphaUsed)
+	auF, err := interval.F{}.Decimal(s.AlphaUsed)
+	if err != nil || !auF.IsFinite() {
+		v.fail(Failure{Where: "alpha_used", Message: "alpha_used cannot be enclosed"})
+		return
+	}
+	if auF.Hi() > stripMaxAlpha {
+		v.fail(Failure{Where: "alpha_used", Message: fmt.Sprintf("alpha_used %s is above %g, beyond what this verifier handles", s.AlphaUsed, stripMaxAlpha)})
+		return
+	}
+	auB := ratB(au, stripNodePrec)
+	N := s.BasisSize
+
+	// Witness coefficients.
+	var coefB [2][]interval.B
+	var coefF [2][]interval.F
+	var norm2 [2]*big.Rat
+	for w, wit := range []certificates.StripWitness{s.AdvantageWitness, s.DeficitWitness} {
+		coefB[w] = make([]interval.B, N)
+		coefF[w] = make([]interval.F, N)
+		norm2[w] = new(big.Rat)
+		for j, cs := range wit.Coefficients {
+			r := v.rat(cs)
+			coefB[w][j] = ratB(r, stripNodePrec)
+			coefF[w][j] = stripToF(coefB[w][j])
+			norm2[w].Add(norm2[w], new(big.Rat).Mul(r, r))
+		}
+	}
+
+	// The rule.
+	n, qEta, ok := planStripRule(auF.Mid().Lo(), N, coefF)
+	if !ok {
+		v.fail(Failure{Where: "basis_size", Message: fmt.Sprintf("the verifier's rule for basis size %d at alpha %s would need more than %d nodes", N, s.AlphaUsed, stripMaxNodes)})
+		return
+	}
+	rule, err := newStripRule(n, v.opt.Workers)
+	if err != nil {
+		v.fail(Failure{Where: "rule", Message: err.Error()})
+		return
+	}
+	v.sr.RuleNodes = n + 1
+	nd := rule.nodeData(auB, v.opt.Workers)
+	rows := rule.rows(N, coefB, v.opt.Workers)
+	v.lap("rule")
+
+	// The kernel matrix At and its bounds.
+	M := n + 1
+	At := make([][]float64, M)
+	radRow := make([]interval.F, M)
+	normRow := make([]interval.F, M)
+	var wrad [2][]interval.F
+	var psiMid, psiRad [2][]float64
+	for w := range wrad {
+		wrad[w] = make([]interval.F, M)
+		psiMid[w] = make([]float64, M)
+		psiRad[w] = make([]float64, M)
+		for a := 0; a < M; a++ {
+			psiMid[w][a], psiRad[w][a] = midRad(rows.psi[w][a])
+		}
+	}
+	sqwF := make([]interval.F, M)
+	for a := range sqwF {
+		sqwF[a] = stripToF(rule.sqw[a])
+	}
+	stripParallel(M, v.opt.Workers, func(a int) {
+		row := make([]float64, M)
+		r2, n2 := interval.PointF(0), interval.PointF(0)
+		var wr [2]interval.F
+		for b := 0; b < M; b++ {
+			var ww interval.F
+			if a <= b {
+				ww = sqwF[a].Mul(sqwF[b])
+			} else {
+				ww = sqwF[b].Mul(sqwF[a])
+			}
+			x := ww.Mul(nd.kernel(auF, a, b))
+			mid, rad := midRad(x)
+			row[b] = mid
+			rr := interval.PointF(rad)
+			r2 = r2.Add(rr.Sqr())
+			n2 = n2.Add(interval.PointF(mid).Sqr())
+			for w := range wr {
+				wr[w] = wr[w].Add(rr.Mul(interval.PointF(math.Abs(psiMid[w][b]))))
+			}
+		}
+		At[a] = row
+		radRow[a], normRow[a] = r2, n2
+		for w := range wr {
+			wrad[w][a] = wr[w].Mul(interval.PointF(math.Abs(psiMid[w][a])))
+		}
+	})
+	radA2, normA2 := interval.PointF(0), interval.PointF(0)
+	for a := 0; a < M; a++ {
+		radA2 = radA2.Add(radRow[a])
+		normA2 = normA2.Add(normRow[a])
+	}
+	radA := interval.PointF(radA2.Sqrt().Hi())
+	normA := interval.PointF(normA2.Sqrt().Hi())
+	v.lap("kernel")
+
+	// Quadrature remainders.
+	logMk := newKernelSup(auF, qEta, 0).bound(1e-3)
+	logC := stripLogC(n, rule.wsum, qEta, logMk)
+	quadG := galerkinQuadF(logC, N, qEta, rule.wsum)
+	var quadW [2]interval.F
+	for w := range quadW {
+		quadW[w] = witnessQuadF(logC, coefF[w], qEta, rule.wsum)
+	}
+	if !quadG.IsFinite() || !quadW[0].IsFinite() || !quadW[1].IsFinite() {
+		v.fail(Failure{Where: "rule", Message: "the verifier's quadrature remainder bound is not finite"})
+		return
+	}
+	v.lap("remainders")
+
+	// 2. Witnesses.
+	var R [2]interval.F
+	for w := range R {
+		R[w] = v.rayleigh(At, psiMid[w], psiRad[w], wrad[w], normA, radA, quadW[w], norm2[w])
+	}
+	v.sr.AdvantageRayleigh = bracketOf(R[0], 17)
+	v.sr.DeficitRayleigh = bracketOf(R[1], 17)
+	for w, wit := range []certificates.StripWitness{s.AdvantageWitness, s.DeficitWitness} {
+		name := []string{"advantage_witness", "deficit_witness"}[w]
+		mine := []certificates.StripBracket{v.sr.AdvantageRayleigh, v.sr.DeficitRayleigh}[w]
+		lo, hi := v.rat(wit.Rayleigh.Lower), v.rat(wit.Rayleigh.Upper)
+		rl, rh := ratOfFloat(R[w].Lo()), ratOfFloat(R[w].Hi())
+		if lo.Cmp(rh) > 0 || hi.Cmp(rl) < 0 {
+			v.fail(Failure{Where: name + ".rayleigh", Refuted: true,
+				Message: fmt.Sprintf("the recorded enclosure [%s, %s] of the Rayleigh quotient is false: the verifier's is [%s, %s]",
+					wit.Rayleigh.Lower, wit.Rayleigh.Upper, mine.Lower, mine.Upper)})
+		}
+	}
+	zero := new(big.Rat)
+	ratMaxR := func(a, b *big.Rat) *big.Rat {
+		if a.Cmp(b) >= 0 {
+			return a
+		}
+		return b
+	}
+	add := func(a, b *big.Rat) *big.Rat { return new(big.Rat).Add(a, b) }
+	sub := func(a, b *big.Rat) *big.Rat { return new(big.Rat).Sub(a, b) }
+	rMinHi, rMaxLo := ratOfFloat(R[0].Hi()), ratOfFloat(R[1].Lo())
+	// Proved lower ends, with the recorded e (checked above) and with the
+	// verifier's own eps.
+	advLoRec := ratMaxR(new(big.Rat).Neg(add(rMinHi, e)), zero)
+	defLoRec := ratMaxR(sub(rMaxLo, e), zero)
+	advLoOwn := ratMaxR(new(big.Rat).Neg(add(rMinHi, epsOwn)), zero)
+	defLoOwn := ratMaxR(sub(rMaxLo, epsOwn), zero)
+	v.sr.AdvantageProved.Lower = ratDown17(advLoOwn)
+	v.sr.DeficitProved.Lower = ratDown17(defLoOwn)
+	advLo, defLo := v.rat(s.Advantage.Lower), v.rat(s.Deficit.Lower)
+	if advLo.Cmp(advLoRec) > 0 {
+		v.fail(Failure{Where: "advantage", Bound: true, By: ratDecimal(sub(advLo, advLoRec)),
+			Message: fmt.Sprintf("the lower end %s is not proved: the advantage witness gives A(alpha) >= max(-(R + e), 0) = %s (R <= %s, e = %s)",
+				s.Advantage.Lower, ratDown17(advLoRec), v.sr.AdvantageRayleigh.Upper, s.Errors.AlphaRounding)})
+	}
+	if defLo.Cmp(defLoRec) > 0 {
+		v.fail(Failure{Where: "deficit", Bound: true, By: ratDecimal(sub(defLo, defLoRec)),
+			Message: fmt.Sprintf("the lower end %s is not proved: the deficit witness gives sup spec >= max(R - e, 0) = %s (R >= %s, e = %s)",
+				s.Deficit.Lower, ratDown17(defLoRec), v.sr.DeficitRayleigh.Lower, s.Errors.AlphaRounding)})
+	}
+	v.lap("witnesses")
+
+	// 3. Discarded part.
+	tailOwn, tailNote := v.discarded(auF, N)
+	if tailNote != "" {
+		v.note(tailNote)
+	}
+	v.sr.Discarded = sciUp(tailOwn.Hi())
+	tOwn := ratOfFloat(tailOwn.Hi())
+	if tOwn.Cmp(t) > 0 {
+		v.fail(Failure{Where: "errors.discarded_part", By: ratDecimal(sub(tOwn, t)),
+			Message: fmt.Sprintf("cannot prove discarded_part %s >= ||k - P k P||: the verifier's bound is %s", s.Errors.DiscardedPart, v.sr.Discarded)})
+	}
+	v.lap("discarded")
+
+	// 4. Galerkin bounds.
+	gk := stripGalerkin(At, rows, quadG, radA, normA, v.opt.Workers)
+	At = nil
+	v.sr.GalerkinDistance = sciUp(gk.delta.Hi())
+	glF, _ := interval.F{}.Decimal(s.GalerkinLowest)
+	ghF, _ := interval.F{}.Decimal(s.GalerkinHighest)
+	lowOK, highOK := false, false
+	var lowP, highP float64
+	if R[0].Hi() < glF.Lo() {
+		v.fail(Failure{Where: "galerkin_lowest", Refuted: true, By: fmtFloat(glF.Lo() - R[0].Hi()),
+			Message: fmt.Sprintf("galerkin_lowest %s is false: the advantage witness lies in the Galerkin space and has Rayleigh quotient at most %s", s.GalerkinLowest, v.sr.AdvantageRayleigh.Upper)})
+	} else {
+		lowP, lowOK = gk.proveEdge(glF.Hi(), R[0].Lo(), 1, v.opt.Workers)
+		if !lowOK {
+			v.fail(Failure{Where: "galerkin_lowest",
+				Message: fmt.Sprintf("cannot prove lambda_min(G) >= %s (the verifier's float Galerkin matrix is within %s of G; best proved %s)", s.GalerkinLowest, v.sr.GalerkinDistance, fmtFloat(lowP))})
+		}
+	}
+	if R[1].Lo() > ghF.Hi() {
+		v.fail(Failure{Where: "galerkin_highest", Refuted: true, By: fmtFloat(R[1].Lo() - ghF.Hi()),
+			Message: fmt.Sprintf("galerkin_highest %s is false: the deficit witness lies in the Galerkin space and has Rayleigh quotient at least %s", s.GalerkinHighest, v.sr.DeficitRayleigh.Lower)})
+	} else {
+		highP, highOK = gk.proveEdge(ghF.Lo(), R[1].Hi(), -1, v.opt.Workers)
+		if !highOK {
+			v.fail(Failure{Where: "galerkin_highest",
+				Message: fmt.Sprintf("cannot prove lambda_max(G) <= %s (the verifier's float Galerkin matrix is within %s of G; best proved %s)", s.GalerkinHighest, v.sr.GalerkinDistance, fmtFloat(highP))})
+		}
+	}
+	if lowOK {
+		v.sr.LowestProved = interval.DecimalDown(new(big.Float).SetFloat64(lowP), 17)
+	}
+	if highOK {
+		v.sr.HighestProved = interval.DecimalUp(new(big.Float).SetFloat64(highP), 17)
+	}
+	v.lap("galerkin")
+
+	// 5. Outer ends from the recorded numbers.
+	ratMinR := func(a, b *big.Rat) *big.Rat {
+		if a.Cmp(b) <= 0 {
+			return a
+		}
+		return b
+	}
+	advHiRec := add(sub(t, ratMinR(gl, zero)), e)
+	defHiRec := add(add(ratMaxR(gh, zero), t), e)
+	advHi, defHi := v.rat(s.Advantage.Upper), v.rat(s.Deficit.Upper)
+	if advHi.Cmp(advHiRec) < 0 {
+		v.fail(Failure{Where: "advantage", Bound: true, By: ratDecimal(sub(advHiRec, advHi)),
+			Message: fmt.Sprintf("the upper end %s is not supported: -(min(galerkin_lowest, 0) - discarded_part - alpha_rounding) = %s", s.Advantage.Upper, ratUp17(advHiRec))})
+	}
+	if defHi.Cmp(defHiRec) < 0 {
+		v.fail(Failure{Where: "deficit", Bound: true, By: ratDecimal(sub(defHiRec, defHi)),
+			Message: fmt.Sprintf("the upper end %s is not supported: max(galerkin_highest, 0) + discarded_part + alpha_rounding = %s", s.Deficit.Upper, ratUp17(defHiRec))})
+	}
+
+	// The verifier's own outer ends, and refutations of the claims.
+	if lowOK {
+		up := add(sub(tOwn, ratMinR(ratOfFloat(lowP), zero)), epsOwn)
+		v.sr.AdvantageProved.Upper = ratUp17(up)
+		if advLo.Cmp(up) > 0 {
+			v.fail(Failure{Where: "advantage", Bound: true, Refuted: true, By: ratDecimal(sub(advLo, up)),
+				Message: fmt.Sprintf("the lower end %s is false: the verifier proves A(alpha) <= %s", s.Advantage.Lower, ratUp17(up))})
+		}
+	}
+	if highOK {
+		up := add(add(ratMaxR(ratOfFloat(highP), zero), tOwn), epsOwn)
+		v.sr.DeficitProved.Upper = ratUp17(up)
+		if defLo.Cmp(up) > 0 {
+			v.fail(Failure{Where: "deficit", Bound: true, Refuted: true, By: ratDecimal(sub(defLo, up)),
+				Message: fmt.Sprintf("the lower end %s is false: the verifier proves sup spec K_alpha <= %s", s.Deficit.Lower, ratUp17(up))})
+		}
+	}
+	if advHi.Cmp(advLoOwn) < 0 {
+		v.fail(Failure{Where: "advantage", Bound: true, Refuted: true, By: ratDecimal(sub(advLoOwn, advHi)),
+			Message: fmt.Sprintf("the upper end %s is false: the advantage witness proves A(alpha) >= %s", s.Advantage.Upper, ratDown17(advLoOwn))})
+	}
+	if defHi.Cmp(defLoOwn) < 0 {
+		v.fail(Failure{Where: "deficit", Bound: true, Refuted: true, By: ratDecimal(sub(defLoOwn, defHi)),
+			Message: fmt.Sprintf("the upper end %s is false: the deficit witness proves sup spec K_alpha >= %s", s.Deficit.Upper, ratDown17(defLoOwn))})
+	}
+	if len(v.res.Failures) == 0 {
+		v.res.Recomputed = fmt.Sprintf("A(alpha) in [%s, %s], sup spec in [%s, %s]",
+			v.sr.AdvantageProved.Lower, v.sr.AdvantageProved.Upper, v.sr.DeficitProved.Lower, v.sr.DeficitProved.Upper)
+	}
+}
+
+// rayleigh encloses <psi, k psi>/||c||^2 from the midpoints and radii of
+// psi_hat (psi_hat_a = sqrt(w_a/2) psi(x_a)), the float kernel matrix At
+// with ||A - At||_F <= radA and ||At||_F <= normA, wrad[a] >= |psi_a|
+// sum_b rad(A_ab) |psi_b|, and the quadrature remainder quad. With
+// psi_hat = p + dp and A = At + dA, psi_hat^T A psi_hat differs from
+// p^T At p by at most sum_ab |p_a| |dA_ab| |p_b| + (2 ||p|| + ||dp||) ||dp||
+// (normA + radA).
+func (v *stripVerifier) rayleigh(At [][]float64, p, dp []float64, wrad []interval.F, normA, radA, quad interval.F, norm2 *big.Rat) interval.F {
+	M := len(p)
+	t := make([]float64, M)
+	te := make([]float64, M)
+	stripParallel(M, v.opt.Workers, func(a int) {
+		t[a], te[a] = exactDot(At[a], p)
+	})
+	num, e0 := exactDot(p, t)
+	errs := interval.PointF(e0)
+	pn, dpn := interval.PointF(0), interval.PointF(0)
+	for a := 0; a < M; a++ {
+		errs = errs.Add(interval.PointF(math.Abs(p[a])).Mul(interval.PointF(te[a]))).Add(wrad[a])
+		pn = pn.Add(interval.PointF(p[a]).Sqr())
+		dpn = dpn.Add(interval.PointF(dp[a]).Sqr())
+	}
+	pn, dpn = pn.Sqrt(), dpn.Sqrt()
+	errs = errs.Add(pn.Scale(1).Add(dpn).Mul(dpn).Mul(normA.Add(radA))).Add(quad)
+	den := interval.F{}.Between(ratFloat(norm2, big.ToNegativeInf), ratFloat(norm2, big.ToPositiveInf))
+	return interval.PointF(num).Pad(interval.PointF(errs.Hi())).Quo(den)
+}
+
+func ratFloat(r *big.Rat, mode big.RoundingMode) *big.Float {
+	return new(big.Float).SetPrec(128).SetMode(mode).SetRat(r)
+}
+
+// discarded bounds ||k - P k P|| at the recorded ellipses, or at ellipses
+// of the verifier's own choosing when that is smaller.
+func (v *stripVerifier) discarded(alpha interval.F, N int) (interval.F, string) {
+	s := v.s
+	ex, err1 := certificates.Dec(s.Errors.DiscardedEtaX, "")
+	ey, err2 := certificates.Dec(s.Errors.DiscardedEtaY, "")
+	best := interval.F{}.Whole()
+	if err1 == nil && err2 == nil {
+		e1, _ := ex.Float64()
+		e2, _ := ey.Float64()
+		if e1 > 0 && e2 > 0 && e1 < 50 && e2 < 50 {
+			lm := newKernelSup(alpha, e1, e2).bound(1e-5)
+			best = tailF(lm, N, e1, e2)
+		}
+	}
+	t := v.rat(s.Errors.DiscardedPart)
+	if best.IsFinite() && ratOfFloat(best.Hi()).Cmp(t) <= 0 {
+		return best, ""
+	}
+	// Own choice: minimise the float estimate of the same bound.
+	af := alpha.Mid().Lo()
+	bl, b1, b2 := math.Inf(1), 0.0, 0.0
+	for e1 := 0.002; e1 < 12; e1 *= 1.02 {
+		for e2 := 1e-6; e2 < 6; e2 *= 1.08 {
+			l := logKernelEstimate(af, e1, e2) + math.Log(4) - float64(N)*e1 -
+				math.Log(-math.Expm1(-e1)) + math.Log((math.Exp(e2)+1)/math.Expm1(e2))
+			if l < bl {
+				bl, b1, b2 = l, e1, e2
+			}
+		}
+	}
+	own := tailF(newKernelSup(alpha, b1, b2).bound(1e-5), N, b1, b2)
+	if !best.IsFinite() || own.Hi() < best.Hi() {
+		return own, fmt.Sprintf("discarded part bounded on the verifier's own ellipses (eta_x = %.6g, eta_y = %.6g)", b1, b2)
+	}
+	return best, ""
+}
+
+// planStripRule chooses an even n >= 2N and an ellipse eta for which the
+// float estimates of the Galerkin and witness remainders meet their targets.
+func planStripRule(alpha float64, N int, coef [2][]interval.F) (int, float64, bool) {
+	var lpsi0 [2]float64
+	abs := [2][]float64{make([]float64, N), make([]float64, N)}
+	for w := range coef {
+		var s float64
+		for j, c := range coef[w] {
+			abs[w][j] = c.Abs().Hi()
+			s += abs[w][j] * math.Sqrt(float64(2*j+1))
+		}
+		lpsi0[w] = math.Log(s)
+	}
+	lpsi := func(w int, eta float64) float64 {
+		top := math.Inf(-1)
+		for j, a := range abs[w] {
+			if a > 0 {
+				top = math.Max(top, math.Log(a)+0.5*math.Log(float64(2*j+1))+eta*float64(j))
+			}
+		}
+		var s float64
+		for j, a := range abs[w] {
+			if a > 0 {
+				s += math.Exp(math.Log(a) + 0.5*math.Log(float64(2*j+1)) + eta*float64(j) - top)
+			}
+		}
+		return top + math.Log(s)
+	}
+	n := 2 * N
+	if n < 8 {
+		n = 8
+	}
+	for ; n <= stripMaxNodes; n += 2 * int(math.Max(1, float64(n)/40)) {
+		bestScore, bestEta := math.Inf(1), 0.0
+		for eta := 0.01; eta < 8; eta *= 1.05 {
+			lc := math.Log(2*(2+2/float64((n+2)*(n+2)-1))) + logKernelEstimate(alpha, eta, 0) -
+				float64(n)*eta - math.Log(math.Expm1(2*eta))
+			l1, l2 := logSumWeighted(N, eta, 1), logSumWeighted(N, eta, 2)
+			l0 := 2 * math.Log(float64(N))
+			lg := lc + 0.5*(l2+l0+math.Log(4+8*math.Exp(2*l1-l2-l0)+4)) - math.Log(4)
+			score := lg - math.Log(stripTargetGalerkin)
+			for w := range coef {
+				lw := lc + math.Log(4.0/4) + lpsi(w, eta) + lpsi0[w]
+				score = math.Max(score, lw-math.Log(stripTargetWitness))
+			}
+			if score < bestScore {
+				bestScore, bestEta = score, eta
+			}
+		}
+		if bestScore <= 0 {
+			return n, bestEta, true
+		}
+	}
+	return 0, 0, false
+}
+
+func bracketOf(x interval.F, digits int) certificates.StripBracket {
+	lo, hi, err := interval.Decimals(x, digits)
+	if err != nil {
+		return certificates.StripBracket{Lower: "-inf", Upper: "inf"}
+	}
+	return certificates.StripBracket{Lower: lo, Upper: hi}
+}
+
+func ratDown17(r *big.Rat) string {
+	if r.Sign() == 0 {
+		return "0"
+	}
+	return interval.DecimalDown(ratFloat(r, big.ToNegativeInf), 17)
+}
+
+func ratUp17(r *big.Rat) string {
+	if r.Sign() == 0 {
+		return "0"
+	}
+	return interval.DecimalUp(ratFloat(r, big.ToPositiveInf), 17)
+}
+
+func fmtFloat(x float64) string {
+	if math.IsInf(x, 0) || math.IsNaN(x) {
+		return fmt.Sprint(x)
+	}
+	if x < 0 {
+		return "-" + sciUp(-x)
+	}
+	return sciUp(x)
+}
+
+// sciUp writes x >= 0 rounded up to 6 significant digits in scientific
+// notation (the digits of interval.DecimalUp, with the point moved).
+func sciUp(x float64) string {
+	if math.IsInf(x, 0) || math.IsNaN(x) || x < 0 {
+		return fmt.Sprint(x)
+	}
+	if x == 0 {
+		return "0"
+	}
+	d := interval.DecimalUp(new(big.Float).SetFloat64(x), 6)
+	if strings.ContainsAny(d, "eE") {
+		return d
+	}
+	intPart, frac, _ := strings.Cut(d, ".")
+	digits := strings.TrimLeft(intPart+frac, "0")
+	exp := len(intPart) - 1 - (len(intPart+frac) - len(strings.TrimLeft(intPart+frac, "0")))
+	digits = strings.TrimRight(digits, "0")
+	if digits == "" {
+		return "0"
+	}
+	m := digits[:1]
+	if len(digits) > 1 {
+		m += "." + digits[1:]
+	}
+	if exp == 0 {
+		return m
+	}
+	return fmt.Sprintf("%se%d", m, exp)
+}

@@ -1,0 +1,56 @@
+package main
+
+import (
+	"fmt"
+	"io"
+	"sort"
+)
+
+// printStripText writes the report of a strip-bracket certificate.
+func printStripText(w io.Writer, r fileReport) {
+	res := r.Result
+	s := res.Strip
+	fmt.Fprintf(w, "      problem: %s\n", res.Problem)
+	if res.Pass {
+		fmt.Fprintf(w, "      proved:  %s\n", res.Statement)
+		fmt.Fprintf(w, "      recomputed: %s\n", res.Recomputed)
+	} else {
+		fmt.Fprintf(w, "      claim:   %s\n", res.Statement)
+		f := res.Failures[0]
+		fmt.Fprintf(w, "      first failing claim: %s\n", failureText(f))
+		if !f.Bound {
+			for _, g := range res.Failures {
+				if g.Bound {
+					fmt.Fprintf(w, "      the bracket itself: %s\n", failureText(g))
+					break
+				}
+			}
+		}
+		if n := len(res.Failures) - 1; n > 0 {
+			fmt.Fprintf(w, "      (%d further failure(s); --json lists all)\n", n)
+		}
+	}
+	if s.RuleNodes > 0 {
+		fmt.Fprintf(w, "      checked: basis size %d with a %d-node Clenshaw-Curtis rule; Galerkin matrix within %s, discarded part <= %s; in %.2f s",
+			s.BasisSize, s.RuleNodes, orDash(s.GalerkinDistance), orDash(s.Discarded), r.Seconds)
+		if len(s.Seconds) > 0 {
+			names := make([]string, 0, len(s.Seconds))
+			for k := range s.Seconds {
+				names = append(names, k)
+			}
+			sort.Slice(names, func(i, j int) bool { return s.Seconds[names[i]] > s.Seconds[names[j]] })
+			fmt.Fprintf(w, " (most in %s: %.2f s)", names[0], s.Seconds[names[0]])
+		}
+		fmt.Fprintln(w)
+	}
+	for _, n := range res.Notes {
+		fmt.Fprintf(w, "      note: %s\n", n)
+	}
+}
+
+func orDash(s string) string {
+	if s == "" {
+		return "-"
+	}
+	return s
+}
