@@ -5,6 +5,7 @@ import (
 	"math"
 	"math/big"
 	"runtime"
+	"sort"
 	"strings"
 	"time"
 
@@ -119,9 +120,25 @@ func verifyStrip(c *certificates.Certificate, opt Options, start time.Time) (*Re
 		res: &Result{Problem: stripDescribe(s), Bound: s.Advantage.Lower},
 		sr:  &StripResult{Alpha: s.Alpha.Value, BasisSize: s.BasisSize, Advantage: s.Advantage, Deficit: s.Deficit, Seconds: map[string]float64{}}}
 	v.res.Strip = v.sr
+	// The schema's strict reading, in case c did not come from Decode.
+	probe := *c
+	if err := certificates.Seal(&probe); err == nil {
+		b, err := certificates.Encode(&probe)
+		if err == nil {
+			_, err = certificates.Decode(b)
+		}
+		if err != nil {
+			v.fail(Failure{Where: "structure", Message: err.Error()})
+			v.res.Elapsed = time.Since(start)
+			return v.res, nil
+		}
+	}
 	v.res.Statement = fmt.Sprintf("A(alpha) = -inf spec K_alpha in [%s, %s] and sup spec K_alpha in [%s, %s]",
 		s.Advantage.Lower, s.Advantage.Upper, s.Deficit.Lower, s.Deficit.Upper)
 	v.run()
+	// Claims shown false come first, then those not proved, each in the
+	// order checked.
+	sort.SliceStable(v.res.Failures, func(i, j int) bool { return v.res.Failures[i].Refuted && !v.res.Failures[j].Refuted })
 	v.res.Pass = len(v.res.Failures) == 0
 	v.res.Elapsed = time.Since(start)
 	return v.res, nil

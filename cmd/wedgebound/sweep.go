@@ -8,6 +8,8 @@ import (
 	"image/color"
 	"io"
 	"math"
+	"math/big"
+	"path/filepath"
 	"strconv"
 	"strings"
 
@@ -46,10 +48,11 @@ func runSweep(args []string, stdout, stderr io.Writer) int {
 	csvFile := fs.String("csv", "", "write the brackets as CSV to this file")
 	svgFile := fs.String("svg", "", "write a plot of the advantage bracket against alpha to this SVG file")
 	quiet := fs.Bool("quiet", false, "no progress bar")
+	boundFile := fs.String("bound-certificate", "", "a halfplane-relaxation certificate for the backflow geometry (edge lower); its claimed bound on the backflow constant is drawn as the certified upper band (read, not verified: check it with wedgecheck)")
 	var in stripInput
 	in.add(fs)
 	fs.Usage = func() {
-		fmt.Fprintln(stderr, "usage: wedgebound sweep --from A --to B --points N [--csv FILE] [--svg FILE] [--width W] [--quiet]")
+		fmt.Fprintln(stderr, "usage: wedgebound sweep --from A --to B --points N [--csv FILE] [--svg FILE] [--bound-certificate FILE] [--width W] [--quiet]")
 		fs.PrintDefaults()
 	}
 	if err := fs.Parse(args); err != nil {
@@ -82,6 +85,12 @@ func runSweep(args []string, stdout, stderr io.Writer) int {
 	if err != nil {
 		return fail("%v", err)
 	}
+	var ub *backflowBound
+	if *boundFile != "" {
+		if ub, err = readBoundCertificate(*boundFile); err != nil {
+			return fail("--bound-certificate: %v", err)
+		}
+	}
 	bar := newProgress(stderr, *quiet)
 	var rows []sweepPoint
 	for i, s := range alphas {
@@ -113,7 +122,7 @@ func runSweep(args []string, stdout, stderr io.Writer) int {
 		}
 	}
 	if *svgFile != "" {
-		img, err := sweepPlot(rows, "svg")
+		img, err := sweepPlot(rows, "svg", ub)
 		if err == nil {
 			err = certificates.WriteAtomic(*svgFile, img)
 		}
@@ -128,7 +137,70 @@ func runSweep(args []string, stdout, stderr io.Writer) int {
 	best := bestLower(rows)
 	fmt.Fprintf(stdout, "best certified lower bound for the backflow constant: c_bm >= %s (advantage at alpha = %s)\n",
 		best.res.Advantage.Lower, best.alpha)
+	if ub != nil {
+		fmt.Fprintf(stdout, "certified upper bound read from %s: c_bm <= %s (%s)\n", ub.file, ub.bound, ub.what)
+		lo, _ := new(big.Rat).SetString(best.res.Advantage.Lower)
+		if lo != nil && lo.Cmp(ub.rat) > 0 {
+			fmt.Fprintf(stderr, "wedgebound sweep: the certified lower bound %s exceeds the bound %s read from %s, so one of the two is wrong\n", best.res.Advantage.Lower, ub.bound, ub.file)
+			return 1
+		}
+	}
 	return 0
+}
+
+// backflowBound is an upper bound on the backflow constant read from a
+// halfplane-relaxation certificate.
+type backflowBound struct {
+	file  string
+	bound string   // claim.bound as written
+	rat   *big.Rat // its exact value
+	value float64  // rounded up, for drawing
+	what  string   // what it bounds, in words
+}
+
+// readBoundCertificate reads a halfplane-relaxation certificate strictly
+// (schema and hash) and returns its claimed bound when the problem is the
+// backflow geometry: edge lower, and a normal form with d = 0 and a b > 0
+// (the vertex on the boundary of the half-plane, strictly inside neither
+// ray's line), the class that MATH.md section 2 shows equivalent to the
+// backflow problem and to the projectile problem's limit; then -inf spec of
+// the compressed wedge operator is the backflow constant c_bm, so the claim
+// bounds c_bm and hence A(alpha) for every alpha. The claim itself is not
+// verified here.
+func readBoundCertificate(path string) (*backflowBound, error) {
+	c, err := certificates.ReadFile(path)
+	if err != nil {
+		return nil, err
+	}
+	if c.Kind != certificates.KindRelaxation || c.Relaxation == nil {
+		return nil, fmt.Errorf("%s is a %q certificate, not a %q one", path, c.Kind, certificates.KindRelaxation)
+	}
+	rel := c.Relaxation
+	if rel.Shard != nil {
+		return nil, fmt.Errorf("%s is a partial (shard) certificate; join the shards with wedgebound merge", path)
+	}
+	if rel.Claim.Edge != "lower" || rel.Problem.Edge != "lower" {
+		return nil, fmt.Errorf("%s bounds the %q edge; a bound on the backflow constant needs edge lower", path, rel.Claim.Edge)
+	}
+	a, errA := certificates.Frac(rel.Normal.A, "normal_form.a")
+	b, errB := certificates.Frac(rel.Normal.B, "normal_form.b")
+	d, errD := certificates.Frac(rel.Normal.D, "normal_form.d")
+	if errA != nil || errB != nil || errD != nil {
+		return nil, fmt.Errorf("%s: unreadable normal form", path)
+	}
+	if d.Sign() != 0 || new(big.Rat).Mul(a, b).Sign() <= 0 {
+		return nil, fmt.Errorf("%s is not the backflow geometry (its normal form has d = %s, a b = %s; the backflow and projectile problems have d = 0 and a b > 0)", path, rel.Normal.D, new(big.Rat).Mul(a, b).RatString())
+	}
+	v, err := certificates.Dec(rel.Claim.Bound, "claim.bound")
+	if err != nil {
+		return nil, err
+	}
+	if v.Sign() <= 0 {
+		return nil, fmt.Errorf("%s claims the bound %s, which is not positive", path, rel.Claim.Bound)
+	}
+	f, _ := new(big.Float).SetMode(big.ToPositiveInf).SetPrec(53).SetRat(v).Float64()
+	return &backflowBound{file: path, bound: rel.Claim.Bound, rat: v, value: f,
+		what: "the claim of a halfplane-relaxation certificate for the backflow geometry, which bounds the backflow constant and so A(alpha) for every alpha; read, not verified here: run wedgecheck on it"}, nil
 }
 
 // sweepAlphas returns points log-spaced values from lo to hi, each rounded
@@ -177,9 +249,11 @@ func sweepCSV(rows []sweepPoint) []byte {
 
 // sweepPlot plots the advantage bracket against alpha on a log axis, with
 // the best certified lower bound for the backflow constant as a band that
-// reaches up to the published estimate (dashed; not a certified value).
-// The image format is "svg" for the command (others are for inspection).
-func sweepPlot(rows []sweepPoint, format string) ([]byte, error) {
+// reaches up to the published estimate (dashed; not a certified value),
+// and, when ub is given, the certified upper bound as a second band that
+// reaches down to the estimate. The image format is "svg" for the command
+// (others are for inspection).
+func sweepPlot(rows []sweepPoint, format string, ub *backflowBound) ([]byte, error) {
 	p := plot.New()
 	p.Title.Text = "Certified finite-strip advantage A(alpha)"
 	p.X.Label.Text = "alpha = m L^2 / (hbar t)"
@@ -227,6 +301,27 @@ func sweepPlot(rows []sweepPoint, format string) ([]byte, error) {
 	p.Add(band, lower, ref, upLine, loLine, upPts, loPts, plotter.NewGrid())
 	p.Legend.Add("certified bracket of A(alpha): upper ▲, lower ●", upLine, upPts)
 	p.Legend.Add(fmt.Sprintf("certified c_bm >= %s (alpha = %s); band up to the estimate", trimDigits(best.res.Advantage.Lower, 8), best.alpha), band, lower)
+	ymax := 0.042
+	if ub != nil {
+		from := publishedBackflowEstimate
+		if ub.value < from {
+			from = bl
+		}
+		uband, err := plotter.NewPolygon(plotter.XYs{{X: xmin, Y: from}, {X: xmax, Y: from}, {X: xmax, Y: ub.value}, {X: xmin, Y: ub.value}})
+		if err != nil {
+			return nil, err
+		}
+		uband.Color = color.NRGBA{R: 230, G: 170, B: 90, A: 110}
+		uband.LineStyle.Width = 0
+		uline, err := plotter.NewLine(hrule(xmin, xmax, ub.value))
+		if err != nil {
+			return nil, err
+		}
+		uline.Color = color.RGBA{R: 170, G: 90, A: 255}
+		p.Add(uband, uline)
+		p.Legend.Add(fmt.Sprintf("certified c_bm <= %s (%s, read, not verified); band down to the estimate", ub.bound, filepath.Base(ub.file)), uband, uline)
+		ymax = math.Max(ymax, ub.value*1.05)
+	}
 	p.Legend.Add("estimate 0.0384517 (Bracken & Melloy 1994, not certified)", ref)
 	p.Legend.Top = false
 	p.Legend.Left = false
@@ -235,7 +330,7 @@ func sweepPlot(rows []sweepPoint, format string) ([]byte, error) {
 	p.X.Tick.Marker = plot.LogTicks{Prec: -1}
 	p.X.Min, p.X.Max = xmin, xmax
 	p.Y.Min = 0
-	p.Y.Max = 0.042
+	p.Y.Max = ymax
 	wt, err := p.WriterTo(8*vg.Inch, 5*vg.Inch, format)
 	if err != nil {
 		return nil, err
