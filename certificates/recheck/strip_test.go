@@ -192,7 +192,9 @@ func TestStripTampering(t *testing.T) {
 		{"galerkin_lowest at the estimate", "50", func(s *certificates.Strip) { s.GalerkinLowest = bump(s.Certifier.LowestEstimate, "1e-14") }, "galerkin_lowest", false},
 		{"galerkin_highest lowered", "50", func(s *certificates.Strip) { s.GalerkinHighest = "0.99997" }, "galerkin_highest", true},
 		{"galerkin_highest at the estimate", "50", func(s *certificates.Strip) { s.GalerkinHighest = bump(s.Certifier.HighestEstimate, "-1e-14") }, "galerkin_highest", false},
-		{"rayleigh record", "50", func(s *certificates.Strip) { s.AdvantageWitness.Rayleigh = certificates.StripBracket{Lower: "-0.1", Upper: "-0.05"} }, "advantage_witness.rayleigh", true},
+		{"rayleigh record", "50", func(s *certificates.Strip) {
+			s.AdvantageWitness.Rayleigh = certificates.StripBracket{Lower: "-0.1", Upper: "-0.05"}
+		}, "advantage_witness.rayleigh", true},
 	}
 	for _, c := range cases {
 		cert := stripCert(t, c.alpha)
@@ -239,7 +241,9 @@ func TestStripHarmlessEdits(t *testing.T) {
 		edit func(s *certificates.Strip)
 		note string
 	}{
-		{"tiny witness change", func(s *certificates.Strip) { s.AdvantageWitness.Coefficients[len(s.AdvantageWitness.Coefficients)-1] = "1e-25" }, ""},
+		{"tiny witness change", func(s *certificates.Strip) {
+			s.AdvantageWitness.Coefficients[len(s.AdvantageWitness.Coefficients)-1] = "1e-25"
+		}, ""},
 		{"wider brackets", func(s *certificates.Strip) {
 			s.Advantage = certificates.StripBracket{Lower: "0.029", Upper: "0.03"}
 			s.Deficit = certificates.StripBracket{Lower: "0", Upper: "1.1"}
