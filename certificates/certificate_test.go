@@ -160,8 +160,12 @@ func TestDecodeErrors(t *testing.T) {
 		{"bad problem fraction", mut(func(c *Certificate) { c.Relaxation.Problem.Vertex[0] = "1/0" }), "division by zero"},
 		{"unknown kind", mut(func(c *Certificate) { c.Kind = "other" }), "unknown certificate kind"},
 		{"kind mismatch", mut(func(c *Certificate) { c.Kind = KindStrip }), "exactly the strip section"},
-		{"strip unsupported", mut(func(c *Certificate) { c.Kind = KindStrip; c.Relaxation = nil; c.Strip = &Strip{Alpha: "10"} }), "not supported"},
-		{"both sections", mut(func(c *Certificate) { c.Strip = &Strip{Alpha: "10"} }), "exactly the relaxation section"},
+		{"strip incomplete", mut(func(c *Certificate) {
+			c.Kind = KindStrip
+			c.Relaxation = nil
+			c.Strip = &Strip{Alpha: StripAlpha{Value: "10"}}
+		}), "strip."},
+		{"both sections", mut(func(c *Certificate) { c.Strip = &Strip{Alpha: StripAlpha{Value: "10"}} }), "exactly the relaxation section"},
 		{"missing hash", replace(`"sha256": "`, `"sha256": "0`), "hash is stale"},
 	}
 	// Missing schema or tool: Seal always fills them in, so remove them from

@@ -329,9 +329,9 @@ func TestBadFiles(t *testing.T) {
 		{"non-positive k", reseal(func(c *certificates.Certificate) {
 			c.Relaxation.Terms = []certificates.Term{{Kind: "exp", Params: map[string]string{"k": "-3"}, Weight: "0.5"}}
 		}), exitFail, "must be positive"},
-		{"strip certificate", reseal(func(c *certificates.Certificate) {
-			c.Kind, c.Relaxation, c.Strip = certificates.KindStrip, nil, &certificates.Strip{Alpha: "10"}
-		}), exitMalformed, "not supported by this version"},
+		{"incomplete strip certificate", reseal(func(c *certificates.Certificate) {
+			c.Kind, c.Relaxation, c.Strip = certificates.KindStrip, nil, &certificates.Strip{Alpha: certificates.StripAlpha{Value: "10"}}
+		}), exitMalformed, "inconsistent certificate: strip."},
 		{"unsealed", func() []byte {
 			c := quadrantLower(t)
 			c.SHA256 = ""
