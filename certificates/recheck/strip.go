@@ -81,7 +81,7 @@ type StripResult struct {
 // Strip verifier limits: the largest alpha_used and rule it attempts.
 const (
 	stripMaxAlpha = 1e6
-	stripMaxNodes = 12000
+	stripMaxNodes = 8000
 )
 
 // Targets of the verifier's own quadrature remainders (absolute).

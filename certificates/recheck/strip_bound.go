@@ -123,19 +123,25 @@ func phiF(B interval.F) interval.F {
 }
 
 // phiPrime encloses phi'(B) = coth(B) - 1/B on B >= 0, which increases from
-// 0 to 1 and is at most B/3 (its Laurent series B/3 - B^3/45 + ... is
-// alternating with decreasing terms for B <= 1, and coth(B) - 1/B < 1).
+// 0 towards 1. For B <= 1 it is at most B/3: its series
+// B/3 - B^3/45 + 2 B^5/945 - ... (coefficients 2^{2n} |B_{2n}|/(2n)!, B_{2n}
+// Bernoulli numbers with alternating signs) alternates with terms
+// decreasing in size for B < pi. Above 1 the closed form is enclosed
+// directly.
 func phiPrime(B interval.F) interval.F {
+	at := func(x float64) interval.F {
+		p := interval.PointF(x)
+		return interval.PointF(1).Quo(interval.Tanh(p)).Sub(interval.PointF(1).Quo(p))
+	}
 	lo := 0.0
 	if l := B.Lo(); l >= 1 {
-		lo = interval.PointF(1).Quo(interval.Tanh(interval.PointF(l))).Sub(interval.PointF(1).Quo(interval.PointF(l))).Lo()
+		lo = math.Max(0, at(l).Lo())
 	}
 	hi := 1.0
-	if h := B.Hi(); h < 3 {
+	if h := B.Hi(); h <= 1 {
 		hi = interval.PointF(h).Quo(interval.PointF(3)).Hi()
-	}
-	if h := B.Hi(); h >= 1 {
-		hi = math.Min(hi, interval.PointF(1).Quo(interval.Tanh(interval.PointF(h))).Sub(interval.PointF(1).Quo(interval.PointF(h))).Hi())
+	} else {
+		hi = math.Min(hi, at(h).Hi())
 	}
 	return interval.PointF(lo).Hull(interval.PointF(math.Max(lo, hi)))
 }
