@@ -238,20 +238,7 @@ func printText(w io.Writer, r fileReport) {
 		}
 		fmt.Fprintln(w)
 	} else {
-		fmt.Fprintf(w, "      claim:   %s\n", res.Statement)
-		f := res.Failures[0]
-		fmt.Fprintf(w, "      first failing claim: %s\n", failureText(f))
-		if !f.Bound {
-			for _, g := range res.Failures {
-				if g.Bound {
-					fmt.Fprintf(w, "      the bound itself: %s\n", failureText(g))
-					break
-				}
-			}
-		}
-		if n := len(res.Failures) - 1; n > 0 {
-			fmt.Fprintf(w, "      (%d further failure(s); --json lists all)\n", n)
-		}
+		printFailures(w, res, "bound")
 	}
 	fmt.Fprintf(w, "      checked: %d cells on [%s, %s] as %d pieces", res.Cells, res.Range[0], res.Range[1], res.Pieces)
 	if res.HighPrecision > 0 {
@@ -260,5 +247,25 @@ func printText(w io.Writer, r fileReport) {
 	fmt.Fprintf(w, ", and both tails, in %.2f s\n", r.Seconds)
 	for _, n := range res.Notes {
 		fmt.Fprintf(w, "      note: %s\n", n)
+	}
+}
+
+// printFailures prints the claim, the first failing claim and, when that is
+// about a recorded number, the first failure of the claimed bound itself
+// (what names the bound: "bound" or "bracket").
+func printFailures(w io.Writer, res *recheck.Result, what string) {
+	fmt.Fprintf(w, "      claim:   %s\n", res.Statement)
+	f := res.Failures[0]
+	fmt.Fprintf(w, "      first failing claim: %s\n", failureText(f))
+	if !f.Bound {
+		for _, g := range res.Failures {
+			if g.Bound {
+				fmt.Fprintf(w, "      the %s itself: %s\n", what, failureText(g))
+				break
+			}
+		}
+	}
+	if n := len(res.Failures) - 1; n > 0 {
+		fmt.Fprintf(w, "      (%d further failure(s); --json lists all)\n", n)
 	}
 }

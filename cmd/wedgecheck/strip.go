@@ -15,20 +15,7 @@ func printStripText(w io.Writer, r fileReport) {
 		fmt.Fprintf(w, "      proved:  %s\n", res.Statement)
 		fmt.Fprintf(w, "      recomputed: %s\n", res.Recomputed)
 	} else {
-		fmt.Fprintf(w, "      claim:   %s\n", res.Statement)
-		f := res.Failures[0]
-		fmt.Fprintf(w, "      first failing claim: %s\n", failureText(f))
-		if !f.Bound {
-			for _, g := range res.Failures {
-				if g.Bound {
-					fmt.Fprintf(w, "      the bracket itself: %s\n", failureText(g))
-					break
-				}
-			}
-		}
-		if n := len(res.Failures) - 1; n > 0 {
-			fmt.Fprintf(w, "      (%d further failure(s); --json lists all)\n", n)
-		}
+		printFailures(w, res, "bracket")
 	}
 	if s.RuleNodes > 0 {
 		fmt.Fprintf(w, "      checked: basis size %d with a %d-node Clenshaw-Curtis rule; Galerkin matrix within %s, discarded part <= %s; in %.2f s",
