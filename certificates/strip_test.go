@@ -33,23 +33,11 @@ func stripSample() *Certificate {
 	}}
 }
 
-func sealedBytes(t *testing.T, c *Certificate) []byte {
-	t.Helper()
-	if err := Seal(c); err != nil {
-		t.Fatal(err)
-	}
-	b, err := Encode(c)
-	if err != nil {
-		t.Fatal(err)
-	}
-	return b
-}
-
 func TestStripRoundTrip(t *testing.T) {
 	c := stripSample()
 	c.Strip.Alpha = StripAlpha{Value: "2*pi*2767565111/1104345025000", Lower: "0.0157", Upper: "0.0158",
 		Units: &StripUnits{Mass: "1u", Length: "1um", Time: "1ms"}}
-	b := sealedBytes(t, c)
+	b := sealed(t, c)
 	d, err := Decode(b)
 	if err != nil {
 		t.Fatal(err)
@@ -107,7 +95,7 @@ func TestStripStrictValidation(t *testing.T) {
 	mut := func(f func(s *Strip)) []byte {
 		c := stripSample()
 		f(c.Strip)
-		return sealedBytes(t, c)
+		return sealed(t, c)
 	}
 	cases := []struct {
 		name string
@@ -138,8 +126,8 @@ func TestStripStrictValidation(t *testing.T) {
 		{"eta zero", mut(func(s *Strip) { s.Errors.DiscardedEtaY = "0" }), "discarded_eta_y must be positive"},
 		{"certifier term", mut(func(s *Strip) { s.Certifier.LowestResidual = "x" }), "lowest_cholesky_residual"},
 		{"nodes", mut(func(s *Strip) { s.Certifier.QuadratureNodes = -1 }), "quadrature_nodes"},
-		{"unknown field", bytes.Replace(sealedBytes(t, stripSample()), []byte(`"basis_size"`), []byte(`"extra": 1, "basis_size"`), 1), "unknown field"},
-		{"missing section", func() []byte { c := stripSample(); c.Strip = nil; return sealedBytes(t, c) }(), "exactly the strip section"},
+		{"unknown field", bytes.Replace(sealed(t, stripSample()), []byte(`"basis_size"`), []byte(`"extra": 1, "basis_size"`), 1), "unknown field"},
+		{"missing section", func() []byte { c := stripSample(); c.Strip = nil; return sealed(t, c) }(), "exactly the strip section"},
 	}
 	for _, c := range cases {
 		_, err := Decode(c.data)
@@ -152,7 +140,7 @@ func TestStripStrictValidation(t *testing.T) {
 		}
 	}
 	// An edit after sealing is reported as a stale hash.
-	b := bytes.Replace(sealedBytes(t, stripSample()), []byte(`"0.029"`), []byte(`"0.0291"`), 1)
+	b := bytes.Replace(sealed(t, stripSample()), []byte(`"0.029"`), []byte(`"0.0291"`), 1)
 	if _, err := Decode(b); err == nil || !strings.Contains(err.Error(), "stale") {
 		t.Errorf("unsealed edit: %v", err)
 	}
