@@ -7,7 +7,6 @@ import (
 	"math/big"
 	"runtime"
 	"sort"
-	"strings"
 	"sync"
 	"time"
 
@@ -424,9 +423,7 @@ func statement(e regions.Edge, bound string) string {
 
 // Describe returns a one-line description of a problem for summaries.
 func Describe(p regions.Problem) string {
-	var b strings.Builder
-	fmt.Fprintf(&b, "wedge at (%s, %s) with rays (%s, %s), (%s, %s) in {%s x + %s p > %s}, %s edge",
+	return fmt.Sprintf("wedge at (%s, %s) with rays (%s, %s), (%s, %s) in {%s x + %s p > %s}, %s edge",
 		p.Vertex[0], p.Vertex[1], p.Rays[0][0], p.Rays[0][1], p.Rays[1][0], p.Rays[1][1],
 		p.Halfplane.Normal[0], p.Halfplane.Normal[1], p.Halfplane.Offset, p.Edge)
-	return b.String()
 }
