@@ -11,6 +11,7 @@ import (
 	"sync"
 
 	"wedgebound/interval"
+	"wedgebound/regions"
 )
 
 // CellFunc encloses a real function over the closed cell s (an interval):
@@ -46,32 +47,13 @@ func cellInterval[T interval.Real[T]](like T, lo, hi *big.Rat) T {
 	return a.Hull(b)
 }
 
-// decimals returns the number of decimal places of a terminating decimal
-// (one whose denominator is 2^i 5^j), or 40 if it does not terminate.
+// decimals returns the number of decimal places of a terminating decimal,
+// or 40 if it does not terminate (Cover rejects such breakpoints).
 func decimals(r *big.Rat) int {
-	d := new(big.Int).Set(r.Denom())
-	n2, n5 := 0, 0
-	for d.Bit(0) == 0 {
-		d.Rsh(d, 1)
-		n2++
+	if places, ok := regions.DecimalPlaces(r); ok {
+		return places
 	}
-	five := big.NewInt(5)
-	q, m := new(big.Int), new(big.Int)
-	for {
-		q.QuoRem(d, five, m)
-		if m.Sign() != 0 {
-			break
-		}
-		d.Set(q)
-		n5++
-	}
-	if d.Cmp(big.NewInt(1)) != 0 {
-		return 40
-	}
-	if n5 > n2 {
-		return n5
-	}
-	return n2
+	return 40
 }
 
 // Cover encloses f on every cell of the partition given by the increasing

@@ -62,8 +62,9 @@ func (n Number) Rat() *big.Rat {
 // String writes n as an exact decimal when it has one, else as p/q.
 func (n Number) String() string { return RatString(n.Rat()) }
 
-// RatString writes r as an exact finite decimal when possible, else "p/q".
-func RatString(r *big.Rat) string {
+// DecimalPlaces returns the number of decimal places of r when r is a
+// terminating decimal (its denominator is 2^i 5^j), and ok false otherwise.
+func DecimalPlaces(r *big.Rat) (places int, ok bool) {
 	d := new(big.Int).Set(r.Denom())
 	twos, fives := 0, 0
 	for d.Bit(0) == 0 {
@@ -71,23 +72,27 @@ func RatString(r *big.Rat) string {
 		twos++
 	}
 	five := big.NewInt(5)
-	m := new(big.Int)
+	q, m := new(big.Int), new(big.Int)
 	for {
-		q, rem := new(big.Int).QuoRem(d, five, m)
-		if rem.Sign() != 0 {
+		q.QuoRem(d, five, m)
+		if m.Sign() != 0 {
 			break
 		}
-		d = q
+		d.Set(q)
 		fives++
 	}
 	if d.Cmp(big.NewInt(1)) != 0 {
-		return r.String()
+		return 0, false
 	}
-	digits := twos
-	if fives > digits {
-		digits = fives
+	return max(twos, fives), true
+}
+
+// RatString writes r as an exact finite decimal when possible, else "p/q".
+func RatString(r *big.Rat) string {
+	if places, ok := DecimalPlaces(r); ok {
+		return r.FloatString(places)
 	}
-	return r.FloatString(digits)
+	return r.String()
 }
 
 // MarshalJSON writes the number as a JSON number when it is a finite
