@@ -7,7 +7,6 @@ import (
 	"math/big"
 	"runtime"
 	"sort"
-	"sync"
 	"time"
 
 	"wedgebound/certificates"
@@ -209,24 +208,17 @@ func warmUp(rel regions.Relaxation[interval.F], lo, hi float64, workers int) {
 			pts = append(pts, -m)
 		}
 	}
-	jobs := make(chan func())
-	var wg sync.WaitGroup
-	for range workers {
-		wg.Add(1)
-		go func() {
-			defer wg.Done()
-			for j := range jobs {
-				j()
-			}
-		}()
+	type job struct {
+		t regions.Term[interval.F]
+		s float64
 	}
+	var jobs []job
 	for _, t := range rel.Terms {
 		for _, p := range pts {
-			jobs <- func() { t.Enclose(interval.PointF(p)) }
+			jobs = append(jobs, job{t, p})
 		}
 	}
-	close(jobs)
-	wg.Wait()
+	searchParallel(len(jobs), workers, func(i int) { jobs[i].t.Enclose(interval.PointF(jobs[i].s)) })
 }
 
 // edgeValue turns an eigenvalue enclosure into the bound it proves: for edge
