@@ -1,0 +1,289 @@
+package regions
+
+import (
+	"fmt"
+	"math"
+	"math/cmplx"
+	"sync"
+
+	"wedgebound/interval"
+)
+
+// pathRule is a precomputed quadrature for the path integral
+//
+//	I(s) = int_path g(z) e^{-i lam s z} dz
+//
+// valid for every s in a fixed range: I(s) lies in sum_j h_j e^{-i lam s z_j}
+// padded by err, and I'(s) in sum_j h_j (-i lam z_j) e^{-i lam s z_j} padded by
+// errD. The path is a polygon; each edge is split adaptively into panels
+// carrying the n-point Gauss-Legendre rule, and a panel is kept once the
+// Bernstein-ellipse remainder (gaussBound, M a rigorous bound of the
+// integrand over the ellipse and the whole s-range, from interval
+// evaluations on boxes covering it) is below its share of the tolerance.
+// Pieces of the integral cut off before the polygon (near a singular start
+// or beyond its end) are bounded by the caller and passed in as trunc and
+// truncD.
+type pathRule[T interval.Real[T]] struct {
+	lam         T
+	z, h        []interval.C[T]
+	err, errD   T
+	quad, trunc float64
+	fz, fh      []complex128
+	lamF        float64
+}
+
+// pathSpec describes a path integral to be discretised.
+type pathSpec[T interval.Real[T]] struct {
+	verts []complex128                         // polygon vertices (exact float64 points)
+	g     func(z interval.C[T]) interval.C[T]   // the s-free integrand, for points and boxes
+	lam   int64                                 // the frequency factor in e^{-i lam s z}
+	sr    T                                     // the s-range the rule must serve
+	trunc T                                     // bound on the cut-off pieces of I
+	truncD T                                    // bound on the cut-off pieces of I'
+	tol   float64                               // remainder allowed per unit of path length
+}
+
+const (
+	pathNodes     = 20
+	pathMaxPanels = 60000
+)
+
+var pathRhos = []float64{8, 4, 2.5, 1.7, 1.3}
+
+// buildPathRule discretises spec. It fails when some panel admits no
+// finite ellipse bound down to a tiny length or the panel budget runs out.
+func buildPathRule[T interval.Real[T]](like T, spec pathSpec[T]) (*pathRule[T], error) {
+	rule, err := gaussLegendre(like, pathNodes)
+	if err != nil {
+		return nil, err
+	}
+	lam := like.Int(spec.lam)
+	r := &pathRule[T]{lam: lam, lamF: float64(spec.lam)}
+	total, totalD := like.Int(0), like.Int(0)
+	type seg struct{ a, b complex128 }
+	panels := 0
+	for k := 0; k+1 < len(spec.verts); k++ {
+		stack := []seg{{spec.verts[k], spec.verts[k+1]}}
+		for len(stack) > 0 {
+			p := stack[len(stack)-1]
+			stack = stack[:len(stack)-1]
+			length := cmplx.Abs(p.b - p.a)
+			a := interval.CPoint(like, real(p.a), imag(p.a))
+			b := interval.CPoint(like, real(p.b), imag(p.b))
+			mid := a.Add(b).Scale(-1)
+			hv := b.Sub(a).Scale(-1)
+			e, ed, ok := panelRemainder(spec, mid, hv)
+			if !ok || e.Hi() > spec.tol*length || ed.Hi() > spec.tol*length*math.Max(1, cmplx.Abs(p.b)) {
+				if length < 1e-13*math.Max(1, cmplx.Abs(p.a)) || panels+len(stack) > pathMaxPanels {
+					return nil, fmt.Errorf("path quadrature: no usable panel near %v (length %.3g)", p.a, length)
+				}
+				c := (p.a + p.b) / 2
+				// Push the second half first so panels come out in path order.
+				stack = append(stack, seg{c, p.b}, seg{p.a, c})
+				continue
+			}
+			panels++
+			total = total.Add(e)
+			totalD = totalD.Add(ed)
+			for j := range rule.x {
+				z := mid.Add(hv.MulReal(rule.x[j]))
+				h := spec.g(z).Mul(hv).MulReal(rule.w[j])
+				r.z = append(r.z, z)
+				r.h = append(r.h, h)
+				r.fz = append(r.fz, midC(z))
+				r.fh = append(r.fh, midC(h))
+			}
+		}
+	}
+	r.quad = total.Hi()
+	r.trunc = spec.trunc.Hi()
+	r.err = interval.Upper(total.Add(spec.trunc))
+	r.errD = interval.Upper(totalD.Add(spec.truncD))
+	if !r.err.IsFinite() || !r.errD.IsFinite() {
+		return nil, fmt.Errorf("path quadrature: remainder not finite")
+	}
+	return r, nil
+}
+
+// midC returns the float64 midpoint of a complex enclosure.
+func midC[T interval.Real[T]](z interval.C[T]) complex128 {
+	return complex((z.Re.Lo()+z.Re.Hi())/2, (z.Im.Lo()+z.Im.Hi())/2)
+}
+
+// panelRemainder bounds the Gauss-Legendre remainder of the panel
+// z = mid + hv u, u in [-1, 1], for I and I', minimised over the ellipse
+// parameters of pathRhos.
+func panelRemainder[T interval.Real[T]](spec pathSpec[T], mid, hv interval.C[T]) (T, T, bool) {
+	like := spec.sr
+	var best, bestD T
+	found := false
+	habs := interval.Upper(hv.Abs())
+	for _, rf := range pathRhos {
+		rho := like.Float(rf)
+		inv := like.Int(1).Quo(rho)
+		ax := interval.Upper(rho.Add(inv).Scale(-1))
+		by := interval.Upper(rho.Sub(inv).Scale(-1))
+		M, MD, ok := ellipseMax(spec, mid, hv, ax, by)
+		if !ok {
+			continue
+		}
+		b := gaussBound(M, rho, pathNodes).Mul(habs)
+		bd := gaussBound(MD, rho, pathNodes).Mul(habs)
+		if !found || b.Add(bd).Hi() < best.Add(bestD).Hi() {
+			best, bestD, found = b, bd, true
+		}
+		if found && b.Hi() < spec.tol*1e-6 {
+			break
+		}
+	}
+	return best, bestD, found
+}
+
+// ellipseMax bounds |g(z) e^{-i lam s z}| (and that times lam |z|) over the
+// image z = mid + hv u of the box |Re u| <= ax, |Im u| <= by, for every s in
+// spec.sr, by an 8 x 4 grid of boxes.
+func ellipseMax[T interval.Real[T]](spec pathSpec[T], mid, hv interval.C[T], ax, by T) (T, T, bool) {
+	const nx, ny = 8, 4
+	sr := spec.sr
+	M, MD := sr.Int(0), sr.Int(0)
+	lam := sr.Int(spec.lam)
+	for i := range nx {
+		xa := ax.Mul(sr.Frac(int64(2*i-nx), nx))
+		xb := ax.Mul(sr.Frac(int64(2*i+2-nx), nx))
+		for j := range ny {
+			ya := by.Mul(sr.Frac(int64(2*j-ny), ny))
+			yb := by.Mul(sr.Frac(int64(2*j+2-ny), ny))
+			u := interval.C[T]{Re: xa.Hull(xb), Im: ya.Hull(yb)}
+			z := mid.Add(hv.Mul(u))
+			gz := spec.g(z).Abs()
+			// |e^{-i lam s z}| = e^{lam s Im z}.
+			grow := interval.Exp(lam.Mul(sr).Mul(z.Im))
+			m := interval.Upper(gz.Mul(grow))
+			if !m.IsFinite() {
+				return M, MD, false
+			}
+			M = M.Max(m)
+			MD = MD.Max(interval.Upper(m.Mul(lam).Mul(z.Abs())))
+		}
+	}
+	return M, MD, M.IsFinite() && MD.IsFinite()
+}
+
+// eval encloses I(s) (deriv false) or I'(s) (deriv true) for every s in the
+// interval s, which must lie in the rule's s-range.
+func (r *pathRule[T]) eval(s T, deriv bool) interval.C[T] {
+	sum := interval.RealC(s.Int(0))
+	ls := r.lam.Mul(s)
+	for j, z := range r.z {
+		// e^{-i lam s z} = e^{lam s Im z} (cos(lam s Re z) - i sin(lam s Re z))
+		mag := interval.Exp(ls.Mul(z.Im))
+		sn, cs := interval.SinCos(ls.Mul(z.Re))
+		f := interval.C[T]{Re: cs.Mul(mag), Im: sn.Mul(mag).Neg()}
+		if deriv {
+			// times -i lam z
+			f = f.Mul(interval.C[T]{Re: z.Im.Mul(r.lam), Im: z.Re.Mul(r.lam).Neg()})
+		}
+		sum = sum.Add(r.h[j].Mul(f))
+	}
+	pad := r.err
+	if deriv {
+		pad = r.errD
+	}
+	return interval.C[T]{Re: sum.Re.Pad(pad), Im: sum.Im.Pad(pad)}
+}
+
+// approx returns the float64 value of I(s) from the midpoint nodes (not
+// certified).
+func (r *pathRule[T]) approx(s float64) complex128 {
+	var sum complex128
+	for j, z := range r.fz {
+		sum += r.fh[j] * cmplx.Exp(complex(0, -r.lamF*s)*z)
+	}
+	return sum
+}
+
+// ruleSet caches path rules over consecutive s-ranges, indexed by integers
+// increasing with s.
+type ruleSet[T interval.Real[T]] struct {
+	mu      sync.Mutex
+	rules   map[int]*pathRule[T]
+	fails   map[int]error
+	indexOf func(s float64) (int, bool)
+	rangeOf func(idx int) (lo, hi float64)
+	build   func(idx int, lo, hi float64) (*pathRule[T], error)
+}
+
+func newRuleSet[T interval.Real[T]](indexOf func(float64) (int, bool), rangeOf func(int) (float64, float64), build func(int, float64, float64) (*pathRule[T], error)) *ruleSet[T] {
+	return &ruleSet[T]{rules: map[int]*pathRule[T]{}, fails: map[int]error{}, indexOf: indexOf, rangeOf: rangeOf, build: build}
+}
+
+// get returns the rule for range idx, building it on first use.
+func (rs *ruleSet[T]) get(idx int) (*pathRule[T], error) {
+	rs.mu.Lock()
+	defer rs.mu.Unlock()
+	if r, ok := rs.rules[idx]; ok {
+		return r, nil
+	}
+	if err, ok := rs.fails[idx]; ok {
+		return nil, err
+	}
+	lo, hi := rs.rangeOf(idx)
+	r, err := rs.build(idx, lo, hi)
+	if err != nil {
+		rs.fails[idx] = err
+		return nil, err
+	}
+	rs.rules[idx] = r
+	return r, nil
+}
+
+// over encloses I(s) or I'(s) for every s in the interval s, splitting it
+// at range boundaries; ok is false when a range has no rule.
+func (rs *ruleSet[T]) over(s T, deriv bool) (v interval.C[T], ok bool) {
+	i0, ok0 := rs.indexOf(s.Lo())
+	i1, ok1 := rs.indexOf(s.Hi())
+	if !ok0 || !ok1 {
+		return v, false
+	}
+	first := true
+	for idx := i0; idx <= i1; idx++ {
+		r, err := rs.get(idx)
+		if err != nil {
+			return v, false
+		}
+		lo, hi := rs.rangeOf(idx)
+		part := intersectReal(s, s.Float(lo).Hull(s.Float(hi)))
+		w := r.eval(part, deriv)
+		if first {
+			v, first = w, false
+		} else {
+			v = v.Hull(w)
+		}
+	}
+	return v, true
+}
+
+// approx returns the float64 value of I(s) (not certified).
+func (rs *ruleSet[T]) approx(s float64) complex128 {
+	idx, ok := rs.indexOf(s)
+	if !ok {
+		return cmplx.NaN()
+	}
+	r, err := rs.get(idx)
+	if err != nil {
+		return cmplx.NaN()
+	}
+	return r.approx(s)
+}
+
+// budget returns the largest quadrature and truncation bounds of the rules
+// built so far.
+func (rs *ruleSet[T]) budget() (float64, float64) {
+	rs.mu.Lock()
+	defer rs.mu.Unlock()
+	q, t := 0.0, 0.0
+	for _, r := range rs.rules {
+		q, t = math.Max(q, r.quad), math.Max(t, r.trunc)
+	}
+	return q, t
+}
