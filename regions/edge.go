@@ -287,7 +287,7 @@ func (e *edgeTerm[T]) approx(s float64) complex128 {
 // Lemma (s <= -S, sigma = -s). Write 2 pi i E = int_0^inf psi e^{iF} with
 // psi = 1/(2 cosh(t/2)), F = sigma t + 2c coth(t/2), and -4 pi K the same
 // with psi = sinh(t/2)/(2 cosh^2(t/2)). Split at T with
-// sinh^2(T/2) = q = 4c/sigma. On [0, T], F'' = c csch^2(t/2) coth(t/2) >=
+// sinh^2(T/2) = q = 4c/sigma. On [0, T], F” = c csch^2(t/2) coth(t/2) >=
 // lambda = (sigma/4) sqrt((1+q)/q), and van der Corput's lemma (with the
 // constant 4 sqrt2 from |{|F'| < d}| <= 2d/lambda and the first-derivative
 // bound 2/d on the rest) plus Abel summation give
@@ -303,9 +303,9 @@ func (e *edgeTerm[T]) approx(s float64) complex128 {
 // 2 e^{-3 pi sigma/8} (jump) or 4 e^{-3 pi sigma/8} (kink). Every term
 // decreases with sigma, so the bound at S holds for all sigma >= S.
 // For c = 0: |E| = |J|/(2 pi) <= 1/(8 S) (|J(s)| <= pi/(4|1/2+is|)), and
-// 1 - 2is J = -(1/a) int r^a f' = ... = (1/(a(a+1))) (1/4 + int r^{a+1} f'')
-// with f = (1-r)/(1+r)^2, f'(1) = -1/4, f'' = (10-2r)/(1+r)^4 > 0 and
-// int_0^1 f'' = 11/4, so |K| <= 3/(4 pi S^2).
+// 1 - 2is J = -(1/a) int r^a f' = ... = (1/(a(a+1))) (1/4 + int r^{a+1} f”)
+// with f = (1-r)/(1+r)^2, f'(1) = -1/4, f” = (10-2r)/(1+r)^4 > 0 and
+// int_0^1 f” = 11/4, so |K| <= 3/(4 pi S^2).
 func (e *edgeTerm[T]) tail(S T, side int) T {
 	pi := S.Pi()
 	one := S.Int(1)

@@ -34,13 +34,13 @@ type pathRule[T interval.Real[T]] struct {
 
 // pathSpec describes a path integral to be discretised.
 type pathSpec[T interval.Real[T]] struct {
-	verts []complex128                         // polygon vertices (exact float64 points)
-	g     func(z interval.C[T]) interval.C[T]   // the s-free integrand, for points and boxes
-	lam   int64                                 // the frequency factor in e^{-i lam s z}
-	sr    T                                     // the s-range the rule must serve
-	trunc T                                     // bound on the cut-off pieces of I
-	truncD T                                    // bound on the cut-off pieces of I'
-	tol   float64                               // remainder allowed per unit of path length
+	verts  []complex128                        // polygon vertices (exact float64 points)
+	g      func(z interval.C[T]) interval.C[T] // the s-free integrand, for points and boxes
+	lam    int64                               // the frequency factor in e^{-i lam s z}
+	sr     T                                   // the s-range the rule must serve
+	trunc  T                                   // bound on the cut-off pieces of I
+	truncD T                                   // bound on the cut-off pieces of I'
+	tol    float64                             // remainder allowed per unit of path length
 }
 
 const (
