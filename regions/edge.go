@@ -33,7 +33,7 @@ import (
 // e^{-s pi/2}. For s = -sigma < 0 there is a real saddle point
 // t* = 2 asinh(sqrt(c/sigma)) (F' = sigma - c csch^2(t/2)); the path
 // leaves 0 at angle -pi/4 (where e^{2ic coth} decays), reaches t* and
-// climbs at angle pi/4 to height beta = min(pi/2, max(45/sigma, t*)), then
+// climbs at angle pi/4 to height beta = min(pi/2, max(60/sigma, t*)), then
 // runs horizontally. Float exploration found Im F + Re t/2 >= -0.2 along
 // these paths for c in [1e-3, 50] and sigma in [1e-2, 1e6] over the whole
 // s-window each path serves, so no digits are lost for large |s|.
@@ -62,6 +62,10 @@ func newEdge[T interval.Real[T]](c T, cF float64, kink bool) *edgeTerm[T] {
 
 // edgeGeometry returns the saddle t*, the depth d1, the height beta and the
 // window width for sigma > 0.
+// edgeClimb is the target of sigma*beta: the final horizontal leg of the path
+// for s < 0 then lies below e^{-edgeClimb} and is mostly cut off.
+const edgeClimb = 60
+
 func edgeGeometry(c, sigma float64) (ts, d1, beta, width float64) {
 	ts = math.Inf(1)
 	if sigma > 0 {
@@ -70,7 +74,7 @@ func edgeGeometry(c, sigma float64) (ts, d1, beta, width float64) {
 	d1 = math.Min(ts/2, math.Pi/2)
 	beta = math.Pi / 2
 	if sigma > 0 {
-		beta = math.Min(math.Pi/2, math.Max(45/sigma, ts))
+		beta = math.Min(math.Pi/2, math.Max(edgeClimb/sigma, ts))
 	}
 	width = 2 / math.Max(d1, beta)
 	return
@@ -137,6 +141,23 @@ func (e *edgeTerm[T]) integrand(t interval.C[T]) interval.C[T] {
 	return f.Quo(den)
 }
 
+// mag bounds |integrand(t) e^{-ist}| over the box t and all s in sr through
+// the single exponent -Re t/2 - 2c Im coth(t/2) + s Im t and |a(t)|.
+func (e *edgeTerm[T]) mag(t interval.C[T], sr T) T {
+	one := interval.RealC(t.Re.Int(1))
+	u := t.Neg().Exp()
+	coth := one.Add(u).Quo(one.Sub(u))
+	ex := t.Re.Scale(-1).Neg().Sub(coth.Im.Mul(e.c).Scale(1)).Add(sr.Mul(t.Im))
+	den := one.Add(u)
+	var a interval.C[T]
+	if e.kink {
+		a = one.Sub(u).Quo(den.Sqr())
+	} else {
+		a = one.Quo(den)
+	}
+	return interval.Upper(interval.Exp(ex).Mul(a.Re.Abs().Add(a.Im.Abs())))
+}
+
 // ampBound bounds |a(t)| on the start gap and on the final horizontal line.
 func (e *edgeTerm[T]) ampBound(like T) T {
 	if e.kink {
@@ -199,7 +220,7 @@ func (e *edgeTerm[T]) buildRule(idx int, lo, hi float64) (*pathRule[T], error) {
 	sb, cb := interval.SinCos(B)
 	grow := interval.Upper(interval.Exp(sr.Mul(B)))
 	last := real(verts[len(verts)-1])
-	X := math.Max(last, 1)
+	X := last
 	var tail, tailD T
 	for {
 		XT := like.Float(X)
@@ -214,13 +235,13 @@ func (e *edgeTerm[T]) buildRule(idx int, lo, hi float64) (*pathRule[T], error) {
 		if tail.Hi() <= tol || X > 400 {
 			break
 		}
-		X += 4
+		X += math.Max(0.25, X/4)
 	}
 	if X > last {
 		verts = append(verts, complex(X, beta))
 	}
 	return buildPathRule(like, pathSpec[T]{
-		verts: verts, g: e.integrand, lam: 1, sr: sr,
+		verts: verts, g: e.integrand, mag: e.mag, lam: 1, sr: sr,
 		trunc: interval.Upper(gap.Add(tail)), truncD: interval.Upper(gapD.Add(tailD)),
 		tol: tol,
 	})

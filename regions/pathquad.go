@@ -41,6 +41,9 @@ type pathSpec[T interval.Real[T]] struct {
 	trunc  T                                   // bound on the cut-off pieces of I
 	truncD T                                   // bound on the cut-off pieces of I'
 	tol    float64                             // remainder allowed per unit of path length
+	// mag, if set, bounds |g(z) e^{-i lam s z}| over a box z and all s in sr
+	// (combining the exponents avoids underflow against overflow).
+	mag func(z interval.C[T], sr T) T
 }
 
 const (
@@ -48,7 +51,7 @@ const (
 	pathMaxPanels = 60000
 )
 
-var pathRhos = []float64{8, 4, 2.5, 1.7, 1.3}
+var pathRhos = []float64{4, 8, 2.2, 1.5, 1.25}
 
 // buildPathRule discretises spec. It fails when some panel admits no
 // finite ellipse bound down to a tiny length or the panel budget runs out.
@@ -72,8 +75,9 @@ func buildPathRule[T interval.Real[T]](like T, spec pathSpec[T]) (*pathRule[T], 
 			b := interval.CPoint(like, real(p.b), imag(p.b))
 			mid := a.Add(b).Scale(-1)
 			hv := b.Sub(a).Scale(-1)
-			e, ed, ok := panelRemainder(spec, mid, hv)
-			if !ok || e.Hi() > spec.tol*length || ed.Hi() > spec.tol*length*math.Max(1, cmplx.Abs(p.b)) {
+			want, wantD := spec.tol*length, spec.tol*length*math.Max(1, cmplx.Abs(p.b))
+			e, ed, ok := panelRemainder(spec, mid, hv, want, wantD)
+			if !ok || e.Hi() > want || ed.Hi() > wantD {
 				if length < 1e-13*math.Max(1, cmplx.Abs(p.a)) || panels+len(stack) > pathMaxPanels {
 					return nil, fmt.Errorf("path quadrature: no usable panel near %v (length %.3g)", p.a, length)
 				}
@@ -111,9 +115,10 @@ func midC[T interval.Real[T]](z interval.C[T]) complex128 {
 }
 
 // panelRemainder bounds the Gauss-Legendre remainder of the panel
-// z = mid + hv u, u in [-1, 1], for I and I', minimised over the ellipse
-// parameters of pathRhos.
-func panelRemainder[T interval.Real[T]](spec pathSpec[T], mid, hv interval.C[T]) (T, T, bool) {
+// z = mid + hv u, u in [-1, 1], for I and I', trying the ellipse parameters
+// of pathRhos in turn until both bounds meet want and wantD (else the best
+// pair found is returned).
+func panelRemainder[T interval.Real[T]](spec pathSpec[T], mid, hv interval.C[T], want, wantD float64) (T, T, bool) {
 	like := spec.sr
 	var best, bestD T
 	found := false
@@ -132,7 +137,7 @@ func panelRemainder[T interval.Real[T]](spec pathSpec[T], mid, hv interval.C[T])
 		if !found || b.Add(bd).Hi() < best.Add(bestD).Hi() {
 			best, bestD, found = b, bd, true
 		}
-		if found && b.Hi() < spec.tol*1e-6 {
+		if found && best.Hi() <= want && bestD.Hi() <= wantD {
 			break
 		}
 	}
@@ -155,10 +160,17 @@ func ellipseMax[T interval.Real[T]](spec pathSpec[T], mid, hv interval.C[T], ax,
 			yb := by.Mul(sr.Frac(int64(2*j+2-ny), ny))
 			u := interval.C[T]{Re: xa.Hull(xb), Im: ya.Hull(yb)}
 			z := mid.Add(hv.Mul(u))
-			gz := spec.g(z).Abs()
-			// |e^{-i lam s z}| = e^{lam s Im z}.
-			grow := interval.Exp(lam.Mul(sr).Mul(z.Im))
-			m := interval.Upper(gz.Mul(grow))
+			var m T
+			if spec.mag != nil {
+				m = spec.mag(z, sr)
+			} else {
+				// |g| <= |Re g| + |Im g| (no underflow in a square root);
+				// |e^{-i lam s z}| = e^{lam s Im z}.
+				g := spec.g(z)
+				gz := g.Re.Abs().Add(g.Im.Abs())
+				grow := interval.Exp(lam.Mul(sr).Mul(z.Im))
+				m = interval.Upper(gz.Mul(grow))
+			}
 			if !m.IsFinite() {
 				return M, MD, false
 			}

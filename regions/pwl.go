@@ -57,8 +57,8 @@ func newPWL[T interval.Real[T]](like T, kind string, params map[string]string, s
 		}
 		return regimeIndex(s), true
 	}, regimeRange, t.buildDiag)
-	// The diagonal is left to the tail lemma where it is below 2^-(prec+8).
-	tol := math.Ldexp(1, -int(like.Prec())-8)
+	// The diagonal is left to the tail lemma where it is below 2^-prec.
+	tol := math.Ldexp(1, -int(like.Prec()))
 	t.sNeg, t.sPos = math.Inf(1), math.Inf(1)
 	for S := 1.0; S <= 1<<20; S *= 1.25 {
 		St := like.Float(S)
@@ -150,6 +150,28 @@ func (t *pwlTerm[T]) diagIntegrand(v interval.C[T]) interval.C[T] {
 	return t.transform(th.Scale(1)).Mul(sech)
 }
 
+// diagMag bounds |G^(2 tanh v) sech v e^{-2isv}| over the box v and all s
+// in sr: |G^(w)| <= H1 e^{umax max(0, -Im w)} as h is supported in [0, umax].
+func (t *pwlTerm[T]) diagMag(v interval.C[T], sr T) T {
+	one := interval.RealC(v.Re.Int(1))
+	var th, sech interval.C[T]
+	if v.Re.Lo()+v.Re.Hi() >= 0 {
+		u := v.Scale(1).Neg().Exp()
+		den := one.Add(u)
+		th = one.Sub(u).Quo(den)
+		sech = v.Neg().Exp().Scale(1).Quo(den)
+	} else {
+		u := v.Scale(1).Exp()
+		den := one.Add(u)
+		th = u.Sub(one).Quo(den)
+		sech = v.Exp().Scale(1).Quo(den)
+	}
+	zero := v.Re.Int(0)
+	ex := th.Im.Scale(1).Mul(v.Re.Float(t.umax)).Neg().Max(zero).Add(sr.Scale(1).Mul(v.Im))
+	m := interval.Exp(ex).Mul(t.h1).Mul(sech.Re.Abs().Add(sech.Im.Abs()))
+	return interval.Upper(m)
+}
+
 // buildDiag builds the rule for int_0^V G^(2 tanh v) sech v e^{-2isv} dv,
 // s in [lo, hi].
 func (t *pwlTerm[T]) buildDiag(_ int, lo, hi float64) (*pathRule[T], error) {
@@ -162,7 +184,7 @@ func (t *pwlTerm[T]) buildDiag(_ int, lo, hi float64) (*pathRule[T], error) {
 	trunc := h1.Scale(1).Mul(ev)
 	truncD := h1.Scale(2).Mul(VT.Add(like.Int(1))).Mul(ev) // int_V^inf 2v H1 2e^{-v}
 	return buildPathRule(like, pathSpec[T]{
-		verts: []complex128{0, complex(V, 0)}, g: t.diagIntegrand, lam: 2,
+		verts: []complex128{0, complex(V, 0)}, g: t.diagIntegrand, mag: t.diagMag, lam: 2,
 		sr: like.Float(lo).Hull(like.Float(hi)), trunc: interval.Upper(trunc), truncD: interval.Upper(truncD), tol: tol,
 	})
 }
@@ -188,7 +210,7 @@ func sigmaBounds[T interval.Real[T]](ceta T) (T, T) {
 //
 // Lemma. The integrand of D is analytic in |Im v| < pi/2 and decays as
 // |Re v| -> inf there, so the line may be moved. For s <= -S move it up by
-// eta = pi/3,
+// eta (the best of 14 pi/42 ... 20 pi/42),
 // where |e^{-2isv}| = e^{2 s eta} <= e^{-2 S eta}, Im tanh(v + i eta) >= 0 so
 // |G^(2 tanh)| <= H1, and |sech(v + i eta)| = (sinh^2 v + cos^2 eta)^{-1/2};
 // for s >= S move it down by eta, where |e^{-2isv}| <= e^{-2 S eta} and
@@ -202,11 +224,11 @@ func (t *pwlTerm[T]) diagTail(S T, side int) (T, T) {
 	best, bestD := S.Whole(), S.Whole()
 	etas := []int64{1, 2, 3, 4, 5, 6, 7, 8, 9, 10, 11, 12, 13, 14}
 	if side < 0 {
-		etas = []int64{14}
+		etas = []int64{14, 16, 18, 19, 20}
 	}
 	umax := S.Float(t.umax)
 	for _, k := range etas {
-		eta := pi.Mul(S.Frac(k, 42)) // up to pi/3
+		eta := pi.Mul(S.Frac(k, 42)) // up to 10 pi/21 < pi/2
 		sn, cs := interval.SinCos(eta)
 		ex := S.Mul(eta).Scale(1).Neg()
 		if side > 0 {
