@@ -4,6 +4,8 @@ import (
 	"fmt"
 	"math"
 	"math/big"
+	"slices"
+	"sort"
 
 	"wedgebound/interval"
 )
@@ -22,6 +24,10 @@ type Extreme[T interval.Real[T]] struct {
 	Fast CellFunc[T]
 	// Lo and Hi bound the covered range [Lo, Hi] (terminating decimals).
 	Lo, Hi *big.Rat
+	// Scan lists extra candidate points (terminating decimals) for the
+	// location search, for functions whose extremum hides between the
+	// uniform scan points.
+	Scan []*big.Rat
 	// Outside encloses f(s) for every s outside [Lo, Hi] (from tail lemmas);
 	// for a minimum only its lower end matters, for a maximum its upper end.
 	Outside T
@@ -63,28 +69,32 @@ func (x Extreme[T]) Solve(like T) (ExtremeResult[T], error) {
 		return sign * v.Mid().Lo()
 	}
 	pt := func(v *big.Rat) T { return cellInterval(like, v, v) }
-	// Coarse scan on a grid, then golden-section refinement on big.Rat points.
+	// Coarse scan on a grid (merged with the caller's Scan points), then
+	// golden-section refinement between the best point's neighbours.
 	n := x.Cells * 2
 	if n < 64 {
 		n = 64
 	}
 	width := new(big.Rat).Sub(x.Hi, x.Lo)
 	step := new(big.Rat).Quo(width, big.NewRat(int64(n), 1))
-	best, bestI := math.Inf(1), 0
+	pts := make([]*big.Rat, 0, n+1+len(x.Scan))
 	for i := 0; i <= n; i++ {
-		s := new(big.Rat).Add(x.Lo, new(big.Rat).Mul(step, big.NewRat(int64(i), 1)))
+		pts = append(pts, new(big.Rat).Add(x.Lo, new(big.Rat).Mul(step, big.NewRat(int64(i), 1))))
+	}
+	for _, v := range x.Scan {
+		if v.Cmp(x.Lo) > 0 && v.Cmp(x.Hi) < 0 {
+			pts = append(pts, v)
+		}
+	}
+	sort.Slice(pts, func(i, j int) bool { return pts[i].Cmp(pts[j]) < 0 })
+	pts = slices.CompactFunc(pts, func(a, b *big.Rat) bool { return a.Cmp(b) == 0 })
+	best, bestI := math.Inf(1), 0
+	for i, s := range pts {
 		if v := g(pt(s)); v < best {
 			best, bestI = v, i
 		}
 	}
-	a := new(big.Rat).Add(x.Lo, new(big.Rat).Mul(step, big.NewRat(int64(bestI-1), 1)))
-	b := new(big.Rat).Add(x.Lo, new(big.Rat).Mul(step, big.NewRat(int64(bestI+1), 1)))
-	if a.Cmp(x.Lo) < 0 {
-		a.Set(x.Lo)
-	}
-	if b.Cmp(x.Hi) > 0 {
-		b.Set(x.Hi)
-	}
+	a, b := pts[max(bestI-1, 0)], pts[min(bestI+1, len(pts)-1)]
 	sStar := goldenMin(func(s *big.Rat) T { return point(pt(s)) }, a, b, sign, like.Prec())
 	inner := point(pt(sStar))
 	if !inner.IsFinite() {

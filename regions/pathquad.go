@@ -5,6 +5,7 @@ import (
 	"math"
 	"math/cmplx"
 	"sync"
+	"sync/atomic"
 
 	"wedgebound/interval"
 )
@@ -25,11 +26,19 @@ import (
 // truncD.
 type pathRule[T interval.Real[T]] struct {
 	lam         T
-	z, h        []interval.C[T]
+	panels      []pathPanel[T]
+	offsets     [][]interval.C[T] // per distinct half-length hv: hv x_j
 	err, errD   T
 	quad, trunc float64
 	fz, fh      []complex128
 	lamF        float64
+}
+
+// pathPanel is one panel: nodes z_j = mid + offsets[kind][j] with weights h_j.
+type pathPanel[T interval.Real[T]] struct {
+	mid  interval.C[T]
+	kind int
+	z, h []interval.C[T]
 }
 
 // pathSpec describes a path integral to be discretised.
@@ -65,6 +74,7 @@ func buildPathRule[T interval.Real[T]](like T, spec pathSpec[T]) (*pathRule[T], 
 	total, totalD := like.Int(0), like.Int(0)
 	type seg struct{ a, b complex128 }
 	panels := 0
+	kinds := map[complex128]int{}
 	for k := 0; k+1 < len(spec.verts); k++ {
 		stack := []seg{{spec.verts[k], spec.verts[k+1]}}
 		for len(stack) > 0 {
@@ -89,14 +99,33 @@ func buildPathRule[T interval.Real[T]](like T, spec pathSpec[T]) (*pathRule[T], 
 			panels++
 			total = total.Add(e)
 			totalD = totalD.Add(ed)
+			// Panels parallel to the real axis share offset factors of modulus
+			// 1; on others |e^{-i lam s hv x_j}| may overflow where the node
+			// factor does not, so their nodes are evaluated directly (kind -1).
+			key := (p.b - p.a) / 2
+			kind, ok := kinds[key]
+			if imag(key) != 0 {
+				kind, ok = -1, true
+			}
+			if !ok {
+				kind = len(r.offsets)
+				kinds[key] = kind
+				off := make([]interval.C[T], len(rule.x))
+				for j := range rule.x {
+					off[j] = hv.MulReal(rule.x[j])
+				}
+				r.offsets = append(r.offsets, off)
+			}
+			pn := pathPanel[T]{mid: mid, kind: kind}
 			for j := range rule.x {
 				z := mid.Add(hv.MulReal(rule.x[j]))
 				h := spec.g(z).Mul(hv).MulReal(rule.w[j])
-				r.z = append(r.z, z)
-				r.h = append(r.h, h)
+				pn.z = append(pn.z, z)
+				pn.h = append(pn.h, h)
 				r.fz = append(r.fz, midC(z))
 				r.fh = append(r.fh, midC(h))
 			}
+			r.panels = append(r.panels, pn)
 		}
 	}
 	r.quad = total.Hi()
@@ -182,26 +211,58 @@ func ellipseMax[T interval.Real[T]](spec pathSpec[T], mid, hv interval.C[T], ax,
 }
 
 // eval encloses I(s) (deriv false) or I'(s) (deriv true) for every s in the
-// interval s, which must lie in the rule's s-range.
+// interval s, which must lie in the rule's s-range. Each node factor
+// e^{-i lam s z_j} is the product of the panel factor e^{-i lam s mid} and
+// the offset factor e^{-i lam s hv x_j}, shared by all panels of one length
+// and direction.
 func (r *pathRule[T]) eval(s T, deriv bool) interval.C[T] {
-	sum := interval.RealC(s.Int(0))
 	ls := r.lam.Mul(s)
-	for j, z := range r.z {
-		// e^{-i lam s z} = e^{lam s Im z} (cos(lam s Re z) - i sin(lam s Re z))
-		mag := interval.Exp(ls.Mul(z.Im))
-		sn, cs := interval.SinCos(ls.Mul(z.Re))
-		f := interval.C[T]{Re: cs.Mul(mag), Im: sn.Mul(mag).Neg()}
-		if deriv {
-			// times -i lam z
-			f = f.Mul(interval.C[T]{Re: z.Im.Mul(r.lam), Im: z.Re.Mul(r.lam).Neg()})
+	factors := make([][]interval.C[T], len(r.offsets))
+	for k, off := range r.offsets {
+		f := make([]interval.C[T], len(off))
+		for j, w := range off {
+			f[j] = expMinusI(ls, w)
 		}
-		sum = sum.Add(r.h[j].Mul(f))
+		factors[k] = f
+	}
+	sum := interval.RealC(s.Int(0))
+	for _, p := range r.panels {
+		inner := interval.RealC(s.Int(0))
+		for j, h := range p.h {
+			var t interval.C[T]
+			if p.kind < 0 {
+				t = h.Mul(expMinusI(ls, p.z[j]))
+			} else {
+				t = h.Mul(factors[p.kind][j])
+			}
+			if deriv {
+				z := p.z[j]
+				// times -i lam z
+				t = t.Mul(interval.C[T]{Re: z.Im.Mul(r.lam), Im: z.Re.Mul(r.lam).Neg()})
+			}
+			inner = inner.Add(t)
+		}
+		if p.kind < 0 {
+			sum = sum.Add(inner)
+		} else {
+			sum = sum.Add(inner.Mul(expMinusI(ls, p.mid)))
+		}
 	}
 	pad := r.err
 	if deriv {
 		pad = r.errD
 	}
 	return interval.C[T]{Re: sum.Re.Pad(pad), Im: sum.Im.Pad(pad)}
+}
+
+// expMinusI encloses e^{-i ls z} = e^{ls Im z} (cos(ls Re z) - i sin(ls Re z)).
+func expMinusI[T interval.Real[T]](ls T, z interval.C[T]) interval.C[T] {
+	sn, cs := interval.SinCos(ls.Mul(z.Re))
+	if z.Im.Lo() == 0 && z.Im.Hi() == 0 {
+		return interval.C[T]{Re: cs, Im: sn.Neg()}
+	}
+	mag := interval.Exp(ls.Mul(z.Im))
+	return interval.C[T]{Re: cs.Mul(mag), Im: sn.Mul(mag).Neg()}
 }
 
 // approx returns the float64 value of I(s) from the midpoint nodes (not
@@ -215,38 +276,42 @@ func (r *pathRule[T]) approx(s float64) complex128 {
 }
 
 // ruleSet caches path rules over consecutive s-ranges, indexed by integers
-// increasing with s.
+// increasing with s. Rules for different ranges are built concurrently.
 type ruleSet[T interval.Real[T]] struct {
 	mu      sync.Mutex
-	rules   map[int]*pathRule[T]
-	fails   map[int]error
+	entries map[int]*ruleEntry[T]
 	indexOf func(s float64) (int, bool)
 	rangeOf func(idx int) (lo, hi float64)
 	build   func(idx int, lo, hi float64) (*pathRule[T], error)
 }
 
+// ruleEntry is one range's rule, built once.
+type ruleEntry[T interval.Real[T]] struct {
+	once sync.Once
+	done atomic.Bool
+	rule *pathRule[T]
+	err  error
+}
+
 func newRuleSet[T interval.Real[T]](indexOf func(float64) (int, bool), rangeOf func(int) (float64, float64), build func(int, float64, float64) (*pathRule[T], error)) *ruleSet[T] {
-	return &ruleSet[T]{rules: map[int]*pathRule[T]{}, fails: map[int]error{}, indexOf: indexOf, rangeOf: rangeOf, build: build}
+	return &ruleSet[T]{entries: map[int]*ruleEntry[T]{}, indexOf: indexOf, rangeOf: rangeOf, build: build}
 }
 
 // get returns the rule for range idx, building it on first use.
 func (rs *ruleSet[T]) get(idx int) (*pathRule[T], error) {
 	rs.mu.Lock()
-	defer rs.mu.Unlock()
-	if r, ok := rs.rules[idx]; ok {
-		return r, nil
+	e, ok := rs.entries[idx]
+	if !ok {
+		e = &ruleEntry[T]{}
+		rs.entries[idx] = e
 	}
-	if err, ok := rs.fails[idx]; ok {
-		return nil, err
-	}
-	lo, hi := rs.rangeOf(idx)
-	r, err := rs.build(idx, lo, hi)
-	if err != nil {
-		rs.fails[idx] = err
-		return nil, err
-	}
-	rs.rules[idx] = r
-	return r, nil
+	rs.mu.Unlock()
+	e.once.Do(func() {
+		lo, hi := rs.rangeOf(idx)
+		e.rule, e.err = rs.build(idx, lo, hi)
+		e.done.Store(true)
+	})
+	return e.rule, e.err
 }
 
 // over encloses I(s) or I'(s) for every s in the interval s, splitting it
@@ -292,10 +357,16 @@ func (rs *ruleSet[T]) approx(s float64) complex128 {
 // built so far.
 func (rs *ruleSet[T]) budget() (float64, float64) {
 	rs.mu.Lock()
-	defer rs.mu.Unlock()
+	entries := make([]*ruleEntry[T], 0, len(rs.entries))
+	for _, e := range rs.entries {
+		entries = append(entries, e)
+	}
+	rs.mu.Unlock()
 	q, t := 0.0, 0.0
-	for _, r := range rs.rules {
-		q, t = math.Max(q, r.quad), math.Max(t, r.trunc)
+	for _, e := range entries {
+		if e.done.Load() && e.rule != nil {
+			q, t = math.Max(q, e.rule.quad), math.Max(t, e.rule.trunc)
+		}
 	}
 	return q, t
 }

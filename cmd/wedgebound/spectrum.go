@@ -146,8 +146,16 @@ func spectrum[T interval.Real[T]](like T, rel regions.Relaxation[T], digits int,
 			}
 		}
 		outside := rel.Tail(S, 1).Eig(e).Hull(rel.Tail(S, -1).Eig(e))
+		var scan []*big.Rat
+		if !quadrant {
+			// Relaxation terms move the extremum and add oscillation: scan
+			// [-24, 24] in steps of 1/8 as well.
+			for k := int64(-192); k <= 192; k++ {
+				scan = append(scan, big.NewRat(k, 8))
+			}
+		}
 		x := certify.Extreme[T]{
-			F: f, Point: point, Fast: fast, Lo: big.NewRat(-Sv, 1), Hi: big.NewRat(Sv, 1), Outside: outside,
+			F: f, Point: point, Fast: fast, Lo: big.NewRat(-Sv, 1), Hi: big.NewRat(Sv, 1), Outside: outside, Scan: scan,
 			Cells: 64, Eps: eps, Max: e == regions.Upper,
 			Options: certify.CoverOptions{MinWidth: minW, MaxCells: 200000},
 		}
