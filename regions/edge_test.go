@@ -8,28 +8,168 @@ import (
 	"wedgebound/interval"
 )
 
-func TestEdgeProbe(t *testing.T) {
+// tauEdge computes the edge terms from the tau form of MATH.md section 3,
+//
+//	E(c, s) = (1/pi) int_1^inf e^{2ic tau} (2i tau)^{-1} (tau-1)^{-1/2+is} (tau+1)^{-1/2-is} dtau,
+//
+// (and K(c, s) with (2i tau)^{-1} replaced by -1/(4 tau^2), the hat's
+// G^ = -sum sigma_j e^{ic_j w}/w^2 at w = 2 tau) on the turned path
+// tau = 1 + e^{i theta} y, y = e^w, theta = min(1/2, 1/(2|s|)). This is a
+// different integral and path from the package's t = -log r form, in
+// float64.
+func tauEdge(c, s float64, kink bool) complex128 {
+	th := 0.5
+	if math.Abs(s) > 1 {
+		th = 0.5 / math.Abs(s)
+	}
+	rot := cmplx.Exp(complex(0, th))
+	f := func(w float64) complex128 {
+		y := math.Exp(w)
+		tau := 1 + rot*complex(y, 0)
+		amp := 1 / (2i * tau)
+		if kink {
+			amp = -1 / (4 * tau * tau)
+		}
+		p1 := cmplx.Exp(complex(-0.5, s) * complex(w, th))
+		p2 := cmplx.Exp(complex(-0.5, -s) * cmplx.Log(tau+1))
+		return cmplx.Exp(complex(0, 2*c)*tau) * amp * p1 * p2 * rot * complex(y, 0)
+	}
+	wmax := math.Log(40 / (c * math.Sin(th)))
+	return glPanels(f, uniformEdges(-70, wmax, 0.125), 20) / math.Pi
+}
+
+// TestEdgeAgainstTauForm compares the certified edge enclosures with the
+// independent tau-form quadrature; the enclosures must be narrow and agree
+// to the reference's accuracy.
+func TestEdgeAgainstTauForm(t *testing.T) {
 	like := interval.PointF(0)
-	for _, c := range []struct {
-		c, s float64
-		want complex128
-	}{{1, 0.5, 0.041394546536902666 - 0.025932143671708232i}, {1, -2, 0.04649355383599089 - 0.07499688624244379i}, {2, -5, 0.055058342478305614 + 0.004614027342470018i}} {
-		e := newEdge(like.Float(c.c), c.c, false)
-		v, ok := e.value(like.Float(c.s), false)
-		t.Logf("E(%v,%v) = %v ok=%v width %.2g / %.2g, want %v", c.c, c.s, midC(v), ok, v.Re.Rad(), v.Im.Rad(), c.want)
-		if !ok || cmplx.Abs(midC(v)-c.want) > 1e-6 {
-			t.Errorf("mismatch")
+	for _, kink := range []bool{false, true} {
+		for _, c := range []float64{0.05, 0.5, 2} {
+			e := newEdge(like.Float(c), c, kink)
+			for _, s := range []float64{-12, -3, -0.7, 0, 0.4, 2.5, 9} {
+				v, ok := e.value(like.Float(s), false)
+				want := tauEdge(c, s, kink)
+				if !ok || v.Re.Rad() > 1e-13 || v.Im.Rad() > 1e-13 {
+					t.Errorf("kink=%v c=%v s=%v: enclosure %v (ok %v) too wide", kink, c, s, v, ok)
+					continue
+				}
+				if d := cmplx.Abs(midC(v) - want); d > 1e-10 {
+					t.Errorf("kink=%v c=%v s=%v: %v, tau form %v (difference %.2g)", kink, c, s, midC(v), want, d)
+				}
+			}
 		}
 	}
-	b, err := NewTerm(like, "band", map[string]string{"from": "0", "to": "1"})
-	if err != nil {
-		t.Fatal(err)
+}
+
+// TestEdgeZeroLimit checks continuity at c = 0, where the package uses the
+// closed forms E(0, s) = -(i/2pi) J(s) and K(0, s) = -(1/4pi)(1 - 2is J(s)):
+// |E(c) - E(0)| = O(c log(1/c)) as e^{2ic coth(t/2)} - 1 is at most
+// min(2, 4c/t) for small t.
+func TestEdgeZeroLimit(t *testing.T) {
+	like := interval.PointF(0)
+	c := 1e-6
+	for _, kink := range []bool{false, true} {
+		e0 := newEdge(like.Int(0), 0, kink)
+		ec := newEdge(like.Float(c), c, kink)
+		for _, s := range []float64{-20, -1, 0, 0.5, 7} {
+			v0, ok0 := e0.value(like.Float(s), false)
+			vc, okc := ec.value(like.Float(s), false)
+			if !ok0 || !okc {
+				t.Fatalf("no value at s = %v", s)
+			}
+			if d := cmplx.Abs(midC(v0) - midC(vc)); d > 1e-4 {
+				t.Errorf("kink=%v s=%v: E(0) = %v, E(1e-6) = %v", kink, s, midC(v0), midC(vc))
+			}
+		}
 	}
-	for _, c := range [][2]float64{{0.5, 0.709084201856183}, {-2, -0.00027661744414562755}} {
-		m := b.Enclose(like.Float(c[0]))
-		t.Logf("D(%v) = [%v, %v] want %v", c[0], m.D.Lo(), m.D.Hi(), c[1])
-		if math.Abs(m.D.Lo()-c[1]) > 1e-9 {
-			t.Errorf("D mismatch")
+}
+
+// kummerM sums Kummer's series M(a, 1, z) = sum (a)_n z^n / (n!)^2
+// (DLMF 13.2.2, from memory).
+func kummerM(a, z complex128) complex128 {
+	sum, term := complex(1, 0), complex(1, 0)
+	for n := 0; n < 200; n++ {
+		term *= (a + complex(float64(n), 0)) * z / complex(float64((n+1)*(n+1)), 0)
+		sum += term
+	}
+	return sum
+}
+
+// TestStepDiagonalKummer checks the diagonal entry of the band [0, c)
+// against an independent closed form: with t = tanh v,
+// D(s) = (1/pi) int_{-1}^{1} G^(2t) (1-t)^{-1/2+is} (1+t)^{-1/2-is} dt and
+// G^(2t) = int_0^c e^{2iut} du; Euler's integral for Kummer's function
+// (DLMF 13.4.1, from memory) gives int_{-1}^{1} e^{zt} (1-t)^{a-1} (1+t)^{b-1} dt
+// = 2^{a+b-1} e^{-z} B(a, b) M(b, a+b, 2z), and with a + b = 1,
+// B = pi/cosh(pi s):
+// D(s) = (1/cosh(pi s)) int_0^c e^{-2iu} M(1/2 - is, 1, 4iu) du.
+func TestStepDiagonalKummer(t *testing.T) {
+	like := interval.PointF(0)
+	for _, c := range []string{"0.5", "2"} {
+		cf := mustFloat(c)
+		b, err := NewTerm(like, "band", map[string]string{"from": "0", "to": c})
+		if err != nil {
+			t.Fatal(err)
+		}
+		for _, s := range []float64{-2, -0.3, 0, 0.5, 1.7, 3} {
+			a := complex(0.5, -s)
+			ref := glPanels(func(u float64) complex128 {
+				return cmplx.Exp(complex(0, -2*u)) * kummerM(a, complex(0, 4*u))
+			}, uniformEdges(0, cf, 0.05), 16) / complex(math.Cosh(math.Pi*s), 0)
+			m := b.Enclose(like.Float(s))
+			if math.Abs(imag(ref)) > 1e-12 {
+				t.Errorf("c=%s s=%v: Kummer form not real (%v)", c, s, ref)
+			}
+			if d := math.Abs((m.D.Lo()+m.D.Hi())/2 - real(ref)); d > 1e-11 || m.D.Rad() > 1e-12 {
+				t.Errorf("c=%s s=%v: D = [%v, %v], Kummer form %v", c, s, m.D.Lo(), m.D.Hi(), real(ref))
+			}
+		}
+	}
+}
+
+// TestPsiFunctions checks the series branch of psi1, psi2 against the
+// closed forms (e^z - 1)/z and (e^z (z - 1) + 1)/z^2 where both are
+// accurate, and containment of the closed forms.
+func TestPsiFunctions(t *testing.T) {
+	like := interval.PointF(0)
+	for _, z := range []complex128{0.3 + 0.1i, -1 + 2i, 3i, -3.5, 0.001i} {
+		p1, p2 := psiFunctions(interval.CPoint(like, real(z), imag(z)))
+		w1 := (cmplx.Exp(z) - 1) / z
+		w2 := (cmplx.Exp(z)*(z-1) + 1) / (z * z)
+		tol := 1e-14 / math.Min(1, cmplx.Abs(z)*cmplx.Abs(z))
+		if cmplx.Abs(midC(p1)-w1) > tol || cmplx.Abs(midC(p2)-w2) > tol {
+			t.Errorf("z=%v: psi1 %v want %v, psi2 %v want %v", z, midC(p1), w1, midC(p2), w2)
+		}
+		if p1.Re.Rad() > 1e-14 || p2.Re.Rad() > 1e-14 {
+			t.Errorf("z=%v: enclosures too wide: %v %v", z, p1, p2)
+		}
+	}
+}
+
+// TestEdgeTails samples the edge terms beyond S against the tail lemmas of
+// edgeTerm.tail on both sides.
+func TestEdgeTails(t *testing.T) {
+	like := interval.PointF(0)
+	for _, kink := range []bool{false, true} {
+		for _, c := range []float64{0, 0.1, 3} {
+			e := newEdge(like.Float(c), c, kink)
+			for _, S := range []float64{5, 40, 300} {
+				for side := -1; side <= 1; side += 2 {
+					bound := e.tail(like.Float(S), side).Hi()
+					worst := 0.0
+					for k := 0; k < 60; k++ {
+						s := float64(side) * (S + float64(k)*S/40)
+						v, ok := e.value(like.Float(s), false)
+						if !ok {
+							t.Fatalf("no value at %v", s)
+						}
+						worst = math.Max(worst, cmplx.Abs(midC(v))+v.Re.Rad()+v.Im.Rad())
+					}
+					if worst > bound {
+						t.Errorf("kink=%v c=%v S=%v side %d: sampled %.3g above the lemma %.3g", kink, c, S, side, worst, bound)
+					}
+				}
+			}
 		}
 	}
 }

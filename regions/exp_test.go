@@ -307,7 +307,14 @@ func TestNewTermErrors(t *testing.T) {
 		{"exp", map[string]string{"k": "NaN"}, "not a finite number"},
 		{"exp", map[string]string{"k": "1e-9"}, "outside"},
 		{"exp", map[string]string{"k": "2e6"}, "outside"},
-		{"band", map[string]string{"a": "0"}, "unknown term kind"},
+		{"disc", map[string]string{"a": "0"}, "unknown term kind"},
+		{"band", map[string]string{"a": "0"}, "exactly the parameters from and to"},
+		{"band", map[string]string{"from": "2", "to": "1"}, "from < to"},
+		{"band", map[string]string{"from": "-1", "to": "1"}, "outside"},
+		{"band", map[string]string{"from": "0", "to": "5000"}, "outside"},
+		{"band", map[string]string{"from": "0", "to": "NaN"}, "not a finite number"},
+		{"hat", map[string]string{"left": "0", "peak": "1"}, "exactly the parameters left, peak and right"},
+		{"hat", map[string]string{"left": "0", "peak": "2", "right": "1"}, "left < peak < right"},
 	} {
 		_, err := NewTerm(like, c.kind, c.params)
 		if err == nil || !strings.Contains(err.Error(), c.want) {
@@ -318,7 +325,7 @@ func TestNewTermErrors(t *testing.T) {
 	if tm.Kind() != "exp" || tm.Params()["k"] != "150" || tm.Start() != "0" {
 		t.Errorf("exp term reports kind %q params %v start %q", tm.Kind(), tm.Params(), tm.Start())
 	}
-	if k := TermKinds(); len(k) != 1 || k[0] != "exp" {
+	if k := TermKinds(); strings.Join(k, ",") != "band,exp,hat" {
 		t.Errorf("TermKinds() = %v", k)
 	}
 }

@@ -56,16 +56,22 @@ type pathSpec[T interval.Real[T]] struct {
 }
 
 const (
-	pathNodes     = 20
 	pathMaxPanels = 60000
 )
+
+// pathNodes is the Gauss-Legendre order for precision prec: the remainder
+// factor rho^{-2n} must reach 2^-(prec+10) at moderate rho (20 nodes give
+// 2^-120 at rho = 8, enough for 53 bits; the order grows with prec).
+func pathNodes(prec uint) int {
+	return max(20, (int(prec)+40)/5)
+}
 
 var pathRhos = []float64{4, 8, 2.2, 1.5, 1.25}
 
 // buildPathRule discretises spec. It fails when some panel admits no
 // finite ellipse bound down to a tiny length or the panel budget runs out.
 func buildPathRule[T interval.Real[T]](like T, spec pathSpec[T]) (*pathRule[T], error) {
-	rule, err := gaussLegendre(like, pathNodes)
+	rule, err := gaussLegendre(like, pathNodes(like.Prec()))
 	if err != nil {
 		return nil, err
 	}
@@ -161,8 +167,9 @@ func panelRemainder[T interval.Real[T]](spec pathSpec[T], mid, hv interval.C[T],
 		if !ok {
 			continue
 		}
-		b := gaussBound(M, rho, pathNodes).Mul(habs)
-		bd := gaussBound(MD, rho, pathNodes).Mul(habs)
+		n := pathNodes(like.Prec())
+		b := gaussBound(M, rho, n).Mul(habs)
+		bd := gaussBound(MD, rho, n).Mul(habs)
 		if !found || b.Add(bd).Hi() < best.Add(bestD).Hi() {
 			best, bestD, found = b, bd, true
 		}

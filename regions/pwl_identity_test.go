@@ -373,3 +373,46 @@ func TestPWLDecayExponent(t *testing.T) {
 		}
 	}
 }
+
+// TestPWL128Bits checks the 128-bit enclosures against the 53-bit ones:
+// finite, overlapping, and no wider (the rules at 128 bits aim at a
+// tolerance of 2^-138, so they should be much narrower).
+// It takes about a minute, so it runs with WEDGEBOUND_SLOW=1 only.
+func TestPWL128Bits(t *testing.T) {
+	if os.Getenv("WEDGEBOUND_SLOW") != "1" {
+		t.Skip("set WEDGEBOUND_SLOW=1 for the 128-bit band and hat check")
+	}
+	like := interval.NewB(0, 128)
+	for _, c := range []struct {
+		kind   string
+		params map[string]string
+		f      Term[interval.F]
+	}{
+		{"band", map[string]string{"from": "0.5", "to": "2"}, bandF(t, "0.5", "2")},
+		{"hat", map[string]string{"left": "0.5", "peak": "1", "right": "1.5"}, hatF(t, "0.5", "1", "1.5")},
+	} {
+		term, err := NewTerm(like, c.kind, c.params)
+		if err != nil {
+			t.Fatal(err)
+		}
+		for _, s := range []float64{-0.3, -40} {
+			mb := term.Enclose(interval.NewB(s, 128))
+			mf := c.f.Enclose(interval.PointF(s))
+			f := func(x interval.B) interval.F { return interval.PointF(0).Between(x.Endpoints()) }
+			t.Logf("%s %v, s = %v: 128-bit D %v, B %v + i %v", c.kind, c.params, s, mb.D, mb.B.Re, mb.B.Im)
+			if !mb.D.IsFinite() || !mb.B.IsFinite() {
+				t.Errorf("%s %v, s = %v: 128-bit enclosure not finite (D %v, B %v + i %v)", c.kind, c.params, s, mb.D, mb.B.Re, mb.B.Im)
+				continue
+			}
+			if !overlaps(f(mb.D), mf.D) || !overlaps(f(mb.B.Re), mf.B.Re) || !overlaps(f(mb.B.Im), mf.B.Im) {
+				t.Errorf("%s %v, s = %v: 128-bit and 53-bit enclosures disjoint", c.kind, c.params, s)
+			}
+			if w, wf := math.Max(mb.B.Re.Rad(), mb.B.Im.Rad()), math.Max(mf.B.Re.Rad(), mf.B.Im.Rad()); w > wf {
+				t.Errorf("%s %v, s = %v: 128-bit B radius %.3g wider than the 53-bit %.3g", c.kind, c.params, s, w, wf)
+			}
+			if w := math.Max(mb.D.Rad(), math.Max(mb.B.Re.Rad(), mb.B.Im.Rad())); w > 1e-30 {
+				t.Errorf("%s %v, s = %v: 128-bit radius %.3g, want below 1e-30", c.kind, c.params, s, w)
+			}
+		}
+	}
+}
