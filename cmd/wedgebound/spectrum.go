@@ -7,6 +7,7 @@ import (
 	"math"
 	"math/big"
 	"os"
+	"strings"
 
 	"github.com/spf13/pflag"
 
@@ -35,10 +36,12 @@ func runSpectrum(args []string, stdout, stderr io.Writer) int {
 	fs.SetOutput(stderr)
 	quadrant := fs.Bool("quadrant", false, "the bare quadrant {x > 0, p > 0}")
 	termsFile := fs.String("terms", "", "JSON file with relaxation terms [{\"kind\":..., \"params\":{...}, \"weight\":...}] added in quadrant III")
+	termFlags := fs.StringArray("term", nil, "one relaxation term KIND,NAME=VALUE,...,weight=W (repeatable), e.g. band,from=0,to=2,weight=0.3 or hat,left=0,peak=1,right=4,weight=-0.5")
 	digits := fs.Int("digits", 12, "significant digits wanted (1..60 for --quadrant, default 12; 1..5 with --terms, default 4)")
 	asJSON := fs.Bool("json", false, "print JSON with fields inf and sup")
 	fs.Usage = func() {
-		fmt.Fprintln(stderr, "usage: wedgebound spectrum (--quadrant | --terms FILE) [--digits N] [--json]")
+		fmt.Fprintln(stderr, "usage: wedgebound spectrum (--quadrant | --terms FILE | --term SPEC ...) [--digits N] [--json]")
+		fmt.Fprintf(stderr, "term kinds: %s\n", strings.Join(regions.TermKinds(), ", "))
 		fs.PrintDefaults()
 	}
 	if err := fs.Parse(args); err != nil {
@@ -51,11 +54,25 @@ func runSpectrum(args []string, stdout, stderr io.Writer) int {
 		fmt.Fprintf(stderr, "wedgebound spectrum: unexpected argument %q\n", fs.Arg(0))
 		return 2
 	}
-	if *quadrant == (*termsFile != "") {
-		fmt.Fprintln(stderr, "wedgebound spectrum: give exactly one of --quadrant and --terms FILE")
+	given := 0
+	for _, b := range []bool{*quadrant, *termsFile != "", len(*termFlags) > 0} {
+		if b {
+			given++
+		}
+	}
+	if given != 1 {
+		fmt.Fprintln(stderr, "wedgebound spectrum: give exactly one of --quadrant, --terms FILE and --term SPEC")
 		return 2
 	}
-	if *termsFile != "" && !fs.Changed("digits") {
+	var termsJSON []byte
+	if len(*termFlags) > 0 {
+		var err error
+		if termsJSON, err = termSpecsJSON(*termFlags); err != nil {
+			fmt.Fprintf(stderr, "wedgebound spectrum: %v\n", err)
+			return 2
+		}
+	}
+	if !*quadrant && !fs.Changed("digits") {
 		*digits = 4
 	}
 	if *digits < 1 || *digits > 60 {
@@ -63,7 +80,7 @@ func runSpectrum(args []string, stdout, stderr io.Writer) int {
 		return 2
 	}
 	var res [2]interval.B
-	if *termsFile == "" {
+	if *quadrant {
 		prec := uint(float64(*digits)*math.Log2(10)) + 40
 		var err error
 		res, err = spectrum(interval.NewB(0, prec), regions.Relaxation[interval.B]{}, *digits, true)
@@ -78,14 +95,18 @@ func runSpectrum(args []string, stdout, stderr io.Writer) int {
 			fmt.Fprintf(stderr, "wedgebound spectrum: with --terms at most 5 digits are supported, not %d\n", *digits)
 			return 2
 		}
-		data, err := os.ReadFile(*termsFile)
-		if err != nil {
-			fmt.Fprintf(stderr, "wedgebound spectrum: %v\n", err)
-			return 2
+		data, source := termsJSON, "--term"
+		if *termsFile != "" {
+			var err error
+			if data, err = os.ReadFile(*termsFile); err != nil {
+				fmt.Fprintf(stderr, "wedgebound spectrum: %v\n", err)
+				return 2
+			}
+			source = *termsFile
 		}
 		rel, err := decodeRelaxation(interval.F{}, data)
 		if err != nil {
-			fmt.Fprintf(stderr, "wedgebound spectrum: %s: %v\n", *termsFile, err)
+			fmt.Fprintf(stderr, "wedgebound spectrum: %s: %v\n", source, err)
 			return 2
 		}
 		r, err := spectrum(interval.F{}, rel, *digits, false)

@@ -5,6 +5,7 @@ import (
 	"encoding/json"
 	"errors"
 	"fmt"
+	"strings"
 
 	"wedgebound/interval"
 	"wedgebound/regions"
@@ -45,4 +46,34 @@ func decodeRelaxation[T interval.Real[T]](like T, data []byte) (regions.Relaxati
 		rel.Weights = append(rel.Weights, wv)
 	}
 	return rel, nil
+}
+
+// termSpecsJSON turns --term flags KIND,NAME=VALUE,...,weight=W into the
+// JSON term list read by decodeRelaxation.
+func termSpecsJSON(flags []string) ([]byte, error) {
+	specs := make([]termSpec, 0, len(flags))
+	for _, f := range flags {
+		parts := strings.Split(f, ",")
+		spec := termSpec{Kind: strings.TrimSpace(parts[0]), Params: map[string]string{}}
+		for _, p := range parts[1:] {
+			name, value, ok := strings.Cut(p, "=")
+			name, value = strings.TrimSpace(name), strings.TrimSpace(value)
+			if !ok || name == "" || value == "" {
+				return nil, fmt.Errorf("--term %q: %q is not NAME=VALUE", f, p)
+			}
+			if name == "weight" {
+				spec.Weight = value
+				continue
+			}
+			if _, dup := spec.Params[name]; dup {
+				return nil, fmt.Errorf("--term %q: %s given twice", f, name)
+			}
+			spec.Params[name] = value
+		}
+		if spec.Weight == "" {
+			return nil, fmt.Errorf("--term %q: no weight=W", f)
+		}
+		specs = append(specs, spec)
+	}
+	return json.Marshal(specs)
 }
