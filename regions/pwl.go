@@ -131,11 +131,10 @@ func psiFunctions[T interval.Real[T]](z interval.C[T]) (interval.C[T], interval.
 	return pad(s1), pad(s2)
 }
 
-// diagIntegrand encloses G^(2 tanh v) sech v, computing tanh and sech from
-// e^{-2v} (Re v >= 0) or e^{2v} to avoid overflow.
-func (t *pwlTerm[T]) diagIntegrand(v interval.C[T]) interval.C[T] {
+// tanhSech encloses tanh v and sech v, computed from e^{-2v} (Re v >= 0) or
+// e^{2v} to avoid overflow.
+func tanhSech[T interval.Real[T]](v interval.C[T]) (th, sech interval.C[T]) {
 	one := interval.RealC(v.Re.Int(1))
-	var th, sech interval.C[T]
 	if v.Re.Lo()+v.Re.Hi() >= 0 {
 		u := v.Scale(1).Neg().Exp()
 		den := one.Add(u)
@@ -147,25 +146,19 @@ func (t *pwlTerm[T]) diagIntegrand(v interval.C[T]) interval.C[T] {
 		th = u.Sub(one).Quo(den)
 		sech = v.Exp().Scale(1).Quo(den)
 	}
+	return th, sech
+}
+
+// diagIntegrand encloses G^(2 tanh v) sech v.
+func (t *pwlTerm[T]) diagIntegrand(v interval.C[T]) interval.C[T] {
+	th, sech := tanhSech(v)
 	return t.transform(th.Scale(1)).Mul(sech)
 }
 
 // diagMag bounds |G^(2 tanh v) sech v e^{-2isv}| over the box v and all s
 // in sr: |G^(w)| <= H1 e^{umax max(0, -Im w)} as h is supported in [0, umax].
 func (t *pwlTerm[T]) diagMag(v interval.C[T], sr T) T {
-	one := interval.RealC(v.Re.Int(1))
-	var th, sech interval.C[T]
-	if v.Re.Lo()+v.Re.Hi() >= 0 {
-		u := v.Scale(1).Neg().Exp()
-		den := one.Add(u)
-		th = one.Sub(u).Quo(den)
-		sech = v.Neg().Exp().Scale(1).Quo(den)
-	} else {
-		u := v.Scale(1).Exp()
-		den := one.Add(u)
-		th = u.Sub(one).Quo(den)
-		sech = v.Exp().Scale(1).Quo(den)
-	}
+	th, sech := tanhSech(v)
 	zero := v.Re.Int(0)
 	ex := th.Im.Scale(1).Mul(v.Re.Float(t.umax)).Neg().Max(zero).Add(sr.Scale(1).Mul(v.Im))
 	m := interval.Exp(ex).Mul(t.h1).Mul(sech.Re.Abs().Add(sech.Im.Abs()))
