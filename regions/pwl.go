@@ -34,19 +34,18 @@ type edgeRef[T interval.Real[T]] struct {
 // is computed on [0, V] by pathRule with the tail
 // |int_V^inf| <= H1 int_V^inf 2 e^{-v} dv = 2 H1 e^{-V}, H1 = int |h|.
 type pwlTerm[T interval.Real[T]] struct {
-	kind    string
-	params  map[string]string
-	start   string
-	pieces  []piece[T]
-	h1      T       // int |h| du
-	umax    float64 // right end of the support
-	quad    bool    // add the quadrant's A(s) to D (the band [a, inf))
-	edges   []edgeRef[T]
-	diag    *ruleSet[T]
-	sNeg    float64 // D is left to the tail lemma for s <= -sNeg
-	sPos    float64 // and for s >= sPos
-	like    T
-	lemmaOK bool
+	kind   string
+	params map[string]string
+	start  string
+	pieces []piece[T]
+	h1     T       // int |h| du
+	umax   float64 // right end of the support
+	quad   bool    // add the quadrant's A(s) to D (the band [a, inf))
+	edges  []edgeRef[T]
+	diag   *ruleSet[T]
+	sNeg   float64 // D is left to the tail lemma for s <= -sNeg
+	sPos   float64 // and for s >= sPos
+	like   T
 }
 
 func newPWL[T interval.Real[T]](like T, kind string, params map[string]string, start string, pieces []piece[T], h1 T, umax float64, quad bool, edges []edgeRef[T]) *pwlTerm[T] {
