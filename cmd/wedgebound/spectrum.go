@@ -39,6 +39,7 @@ func runSpectrum(args []string, stdout, stderr io.Writer) int {
 	termFlags := fs.StringArray("term", nil, "one relaxation term KIND,NAME=VALUE,...,weight=W (repeatable), e.g. band,from=0,to=2,weight=0.3 or hat,left=0,peak=1,right=4,weight=-0.5")
 	digits := fs.Int("digits", 12, "significant digits wanted (1..60 for --quadrant, default 12; 1..5 with --terms, default 4)")
 	asJSON := fs.Bool("json", false, "print JSON with fields inf and sup")
+	quiet := fs.Bool("quiet", false, "no progress display")
 	fs.Usage = func() {
 		fmt.Fprintln(stderr, "usage: wedgebound spectrum (--quadrant | --terms FILE | --term SPEC ...) [--digits N] [--json]")
 		fmt.Fprintf(stderr, "term kinds: %s\n", strings.Join(regions.TermKinds(), ", "))
@@ -83,7 +84,7 @@ func runSpectrum(args []string, stdout, stderr io.Writer) int {
 	if *quadrant {
 		prec := uint(float64(*digits)*math.Log2(10)) + 40
 		var err error
-		res, err = spectrum(interval.NewB(0, prec), regions.Relaxation[interval.B]{}, *digits, true)
+		res, err = spectrum(interval.NewB(0, prec), regions.Relaxation[interval.B]{}, *digits, true, nil)
 		if err != nil {
 			fmt.Fprintf(stderr, "wedgebound spectrum: %v\n", err)
 			return 1
@@ -109,7 +110,9 @@ func runSpectrum(args []string, stdout, stderr io.Writer) int {
 			fmt.Fprintf(stderr, "wedgebound spectrum: %s: %v\n", source, err)
 			return 2
 		}
-		r, err := spectrum(interval.F{}, rel, *digits, false)
+		bar := newProgress(stderr, *quiet)
+		r, err := spectrum(interval.F{}, rel, *digits, false, bar.update)
+		bar.done()
 		if err != nil {
 			fmt.Fprintf(stderr, "wedgebound spectrum: %v\n", err)
 			return 1
@@ -141,7 +144,7 @@ func runSpectrum(args []string, stdout, stderr io.Writer) int {
 // The bare quadrant (quadrant true) uses the mean-value form, which reaches
 // any precision, with float64 cells first; with terms the cells use direct
 // enclosures.
-func spectrum[T interval.Real[T]](like T, rel regions.Relaxation[T], digits int, quadrant bool) ([2]T, error) {
+func spectrum[T interval.Real[T]](like T, rel regions.Relaxation[T], digits int, quadrant bool, progress func(stage string, done, total int)) ([2]T, error) {
 	// Push the tails out until the tail lemma's |B| bound is small.
 	Sv := int64(8)
 	for Sv < 1<<14 && rel.Tail(like.Int(Sv), -1).B.Re.Hi() > 0.002 {
@@ -179,6 +182,10 @@ func spectrum[T interval.Real[T]](like T, rel regions.Relaxation[T], digits int,
 			F: f, Point: point, Fast: fast, Lo: big.NewRat(-Sv, 1), Hi: big.NewRat(Sv, 1), Outside: outside, Scan: scan,
 			Cells: 64, Eps: eps, Max: e == regions.Upper,
 			Options: certify.CoverOptions{MinWidth: minW, MaxCells: 200000},
+		}
+		if progress != nil {
+			stage := []string{"inf spec", "sup spec"}[i]
+			x.Options.Progress = func(done, total int) { progress(stage, done, total) }
 		}
 		r, err := x.Solve(like)
 		if err != nil {
