@@ -308,8 +308,10 @@ func (e *edgeTerm[T]) approx(s float64) complex128 {
 // Lemma (s <= -S, sigma = -s). Write 2 pi i E = int_0^inf psi e^{iF} with
 // psi = 1/(2 cosh(t/2)), F = sigma t + 2c coth(t/2), and -4 pi K the same
 // with psi = sinh(t/2)/(2 cosh^2(t/2)). Split at T with
-// sinh^2(T/2) = q = 4c/sigma. On [0, T], F” = c csch^2(t/2) coth(t/2) >=
-// lambda = (sigma/4) sqrt((1+q)/q), and van der Corput's lemma (with the
+// sinh^2(T/2) = q = kappa c/sigma for some kappa > 1 (the best of
+// kappa = 1.5 ... 8 is used). On [0, T] the second derivative
+// F_2 = c csch^2(t/2) coth(t/2) decreases, so F_2 >= lambda =
+// (sigma/kappa) sqrt((1+q)/q), and van der Corput's lemma (with the
 // constant 4 sqrt2 from |{|F'| < d}| <= 2d/lambda and the first-derivative
 // bound 2/d on the rest) plus Abel summation give
 // |int_0^T| <= 4 sqrt2 lambda^{-1/2} (|psi(T)| + V(psi; 0, T)); that factor
@@ -317,16 +319,20 @@ func (e *edgeTerm[T]) approx(s float64) complex128 {
 // the kink (psi rises to its maximum 1/4 at sinh(t/2) = 1; for q <= 1 it
 // is increasing on [0, T] with psi(T) <= sqrt(q)/2). On [T, inf) the path
 // is moved to T -> T + i pi/2 -> inf + i pi/2 (no singularity for Re t > 0,
-// |Im t| < pi). There Im F >= (3/4) sigma Im t because cosh T - 1 = 2q =
-// 8c/sigma, so the vertical part is at most max|psi| 4/(3 sigma) with
+// |Im t| < pi). There Im F >= mu Im t with mu = sigma (1 - 1/kappa), as
+// Im F(x + iy) = sigma y - 2c sin y/(cosh x - cos y) and cosh T - 1 = 2q =
+// 2 kappa c/sigma, so the vertical part is at most max|psi|/mu with
 // |psi| <= 1/sqrt2 (jump) or sqrt q + y/2 (kink, giving
-// sqrt(q) 4/(3 sigma) + (8/9)/sigma^2), and the horizontal part at most
-// 2 e^{-3 pi sigma/8} (jump) or 4 e^{-3 pi sigma/8} (kink). Every term
-// decreases with sigma, so the bound at S holds for all sigma >= S.
+// sqrt(q)/mu + 1/(2 mu^2)), and on the horizontal line
+// Im F >= sigma (pi/2 - 1/kappa), so that part is at most
+// 2 e^{-sigma (pi/2 - 1/kappa)} (jump) or 4 e^{-sigma (pi/2 - 1/kappa)}
+// (kink). Every term decreases with sigma, so the bound at S holds for all
+// sigma >= S.
 // For c = 0: |E| = |J|/(2 pi) <= 1/(8 S) (|J(s)| <= pi/(4|1/2+is|)), and
-// 1 - 2is J = -(1/a) int r^a f' = ... = (1/(a(a+1))) (1/4 + int r^{a+1} f”)
-// with f = (1-r)/(1+r)^2, f'(1) = -1/4, f” = (10-2r)/(1+r)^4 > 0 and
-// int_0^1 f” = 11/4, so |K| <= 3/(4 pi S^2).
+// 1 - 2is J = -(1/a) int r^a f_1 = (1/(a(a+1))) (1/4 + int r^{a+1} f_2)
+// (by parts twice, f(1) = 0) with f = (1-r)/(1+r)^2, f_1 = f' = (r-3)/(1+r)^3,
+// f_1(1) = -1/4, f_2 = (f_1)' = (10-2r)/(1+r)^4 > 0 and int_0^1 f_2 = 11/4, so
+// |K| <= 3/(4 pi S^2).
 func (e *edgeTerm[T]) tail(S T, side int) T {
 	pi := S.Pi()
 	one := S.Int(1)
@@ -345,19 +351,29 @@ func (e *edgeTerm[T]) tail(S T, side int) T {
 		v := one.Quo(S.Int(2).Sqrt().Mul(S)).Add(ex.Scale(1))
 		return interval.Upper(v.Quo(pi.Scale(1)))
 	}
-	q := e.c.Scale(2).Quo(S)
-	lam := S.Scale(-2).Mul(one.Add(q).Quo(q).Sqrt())
-	vdc := S.Int(32).Sqrt().Quo(lam.Sqrt()) // 4 sqrt2 lambda^{-1/2}
-	ex := interval.Exp(pi.Mul(S).Mul(S.Frac(3, 8)).Neg())
-	v43 := S.Int(4).Quo(S.Int(3).Mul(S))
-	if e.kink {
-		aT := q.Sqrt().Min(S.Frac(1, 2))
-		if q.Hi() > 1 {
-			aT = S.Frac(1, 2)
+	var best T
+	for i, kappa := range []int64{3, 4, 6, 8, 12, 16} { // kappa/2 = 1.5 ... 8
+		K := S.Frac(kappa, 2)
+		q := K.Mul(e.c).Quo(S)
+		lam := S.Quo(K).Mul(one.Add(q).Quo(q).Sqrt())
+		vdc := S.Int(32).Sqrt().Quo(lam.Sqrt()) // 4 sqrt2 lambda^{-1/2}
+		mu := S.Mul(one.Sub(one.Quo(K)))        // Im F >= mu y on the vertical
+		ex := interval.Exp(S.Mul(pi.Scale(-1).Sub(one.Quo(K))).Neg())
+		var v T
+		if e.kink {
+			aT := q.Sqrt().Min(S.Frac(1, 2))
+			if q.Hi() > 1 {
+				aT = S.Frac(1, 2)
+			}
+			v = vdc.Mul(aT).Add(q.Sqrt().Quo(mu)).Add(one.Quo(mu.Sqr().Scale(1))).Add(ex.Scale(2))
+			v = v.Quo(pi.Scale(2))
+		} else {
+			v = vdc.Scale(-1).Add(one.Quo(S.Int(2).Sqrt().Mul(mu))).Add(ex.Scale(1))
+			v = v.Quo(pi.Scale(1))
 		}
-		v := vdc.Mul(aT).Add(q.Sqrt().Mul(v43)).Add(v43.Sqr().Scale(-1)).Add(ex.Scale(2))
-		return interval.Upper(v.Quo(pi.Scale(2)))
+		if i == 0 || v.Hi() < best.Hi() {
+			best = v
+		}
 	}
-	v := vdc.Scale(-1).Add(v43.Quo(S.Int(2).Sqrt())).Add(ex.Scale(1))
-	return interval.Upper(v.Quo(pi.Scale(1)))
+	return interval.Upper(best)
 }
