@@ -316,6 +316,23 @@ func (t *pwlTerm[T]) Tail(S T, side int) (T, T) {
 	return interval.Upper(d), interval.Upper(b)
 }
 
+// TailD encloses D(s) for side*s >= S: the diagonal lemma's box plus, for
+// the band [a, inf), the quadrant part (1 + tanh(pi s))/2, which lies in
+// [(1 + tanh(pi S))/2, 1] for s >= S and in [0, e^{-2 pi S}] for s <= -S.
+func (t *pwlTerm[T]) TailD(S T, side int) T {
+	d, _ := t.diagTail(S, side)
+	box := d.Neg().Hull(d)
+	if !t.quad {
+		return box
+	}
+	one := S.Int(1)
+	if side > 0 {
+		a := interval.Lower(interval.Tanh(S.Pi().Mul(S)).Add(one).Scale(-1))
+		return box.Add(a.Hull(one))
+	}
+	return box.Add(S.Int(0).Hull(interval.Upper(interval.Exp(S.Pi().Scale(1).Mul(S).Neg()))))
+}
+
 // Budget returns the largest quadrature and truncation bounds of the rules
 // built so far (for the integrals before their prefactors 1/pi, 1/(2pi),
 // 1/(4pi)).

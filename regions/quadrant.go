@@ -96,21 +96,33 @@ func QuadrantTail[T interval.Real[T]](S T, side int) (a T, bmax T) {
 	return one.Sub(t).Scale(-1).Hull(S.Int(0)), bmax
 }
 
+// tailRanger is implemented by terms whose D does not tend to 0 at both
+// ends (the band [a, inf) tends to 1 as s -> +inf): TailD encloses D(s)
+// for every side*s >= S, sharper than the box [-dmax, dmax].
+type tailRanger[T interval.Real[T]] interface {
+	TailD(S T, side int) T
+}
+
 // TailSymbol returns, for every s with side*s >= S (S >= 1), an enclosure
 // of a matrix with the same eigenvalues as M(s): A from QuadrantTail, D in
-// [-dm, dm], and B replaced by |B| in [0, bm] (the eigenvalues depend on B
-// only through |B|), where dm = sum |w_j| dmax_j and
-// bm = 1/(8S) + sum |w_j| bmax_j from the terms' tail lemmas.
+// sum_j w_j [-dmax_j, dmax_j] (or w_j TailD_j where a term provides it),
+// and B replaced by |B| in [0, bm] (the eigenvalues depend on B only
+// through |B|), where bm = 1/(8S) + sum |w_j| bmax_j from the terms' tail
+// lemmas.
 func TailSymbol[T interval.Real[T]](S T, side int, terms []Term[T], weights []T) Symbol[T] {
 	a, bm := QuadrantTail(S, side)
-	dm := S.Int(0)
+	box := S.Int(0)
 	for i, t := range terms {
 		d, b := t.Tail(S, side)
 		w := weights[i].Abs()
-		dm = dm.Add(w.Mul(d))
 		bm = bm.Add(w.Mul(b))
+		if r, ok := t.(tailRanger[T]); ok {
+			box = box.Add(r.TailD(S, side).Mul(weights[i]))
+		} else {
+			dm := w.Mul(d)
+			box = box.Add(dm.Neg().Hull(dm))
+		}
 	}
-	box := dm.Neg().Hull(dm)
 	return Symbol[T]{A: a, D: box, B: interval.C[T]{Re: S.Int(0).Hull(bm), Im: S.Int(0)}}
 }
 
