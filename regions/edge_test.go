@@ -173,3 +173,35 @@ func TestEdgeTails(t *testing.T) {
 		}
 	}
 }
+
+// TestBandToInfTail checks that the tail enclosure of a band [a, inf)
+// keeps D near 1 for s -> +inf (D = A - D[0, a) there) and contains sampled
+// values, so the sup spec of a weighted quadrant-III half-band is not
+// inflated by a symmetric box [-1, 1].
+func TestBandToInfTail(t *testing.T) {
+	like := interval.PointF(0)
+	for _, from := range []string{"0", "0.5"} {
+		b, err := NewTerm(like, "band", map[string]string{"from": from, "to": "inf"})
+		if err != nil {
+			t.Fatal(err)
+		}
+		for side := -1; side <= 1; side += 2 {
+			S := like.Int(60)
+			box := b.(*pwlTerm[interval.F]).TailD(S, side)
+			for _, k := range []float64{60, 61.3, 90, 400} {
+				m := b.Enclose(like.Float(float64(side) * k))
+				if !box.Contains(m.D) {
+					t.Errorf("from %s, s = %v: D %v outside the tail enclosure %v", from, float64(side)*k, m.D, box)
+				}
+			}
+			if side > 0 && box.Lo() < 0.999 {
+				t.Errorf("from %s: tail enclosure %v of D for s >= 60 does not stay near 1", from, box)
+			}
+		}
+		w := like.Frac(-1, 5)
+		ts := TailSymbol(like.Int(60), 1, []Term[interval.F]{b}, []interval.F{w})
+		if up := ts.MaxEig().Hi(); up > 1.01 {
+			t.Errorf("from %s: tail sup eigenvalue bound %v, want near 1", from, up)
+		}
+	}
+}
