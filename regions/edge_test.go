@@ -176,7 +176,7 @@ func TestEdgeTails(t *testing.T) {
 
 // TestBandToInfTail checks that the tail enclosure of a band [a, inf)
 // keeps D near 1 for s -> +inf (D = A - D[0, a) there) and contains sampled
-// values, so the sup spec of a weighted quadrant-III half-band is not
+// values (they overlap), so the sup spec of a weighted quadrant-III half-band is not
 // inflated by a symmetric box [-1, 1].
 func TestBandToInfTail(t *testing.T) {
 	like := interval.PointF(0)
@@ -190,8 +190,9 @@ func TestBandToInfTail(t *testing.T) {
 			box := b.(*pwlTerm[interval.F]).TailD(S, side)
 			for _, k := range []float64{60, 61.3, 90, 400} {
 				m := b.Enclose(like.Float(float64(side) * k))
-				if !box.Contains(m.D) {
-					t.Errorf("from %s, s = %v: D %v outside the tail enclosure %v", from, float64(side)*k, m.D, box)
+				// Both enclose the true D(s), so they must meet.
+				if m.D.Hi() < box.Lo() || box.Hi() < m.D.Lo() {
+					t.Errorf("from %s, s = %v: D %v disjoint from the tail enclosure %v", from, float64(side)*k, m.D, box)
 				}
 			}
 			if side > 0 && box.Lo() < 0.999 {
