@@ -141,6 +141,22 @@ func (e *edgeTerm[T]) integrand(t interval.C[T]) interval.C[T] {
 	return f.Quo(den)
 }
 
+// integrandRef encloses integrand(t) e^{-i s0 t} through the single
+// exponent -t/2 + 2ic coth(t/2) - i s0 t.
+func (e *edgeTerm[T]) integrandRef(t interval.C[T], s0 T) interval.C[T] {
+	one := interval.RealC(t.Re.Int(1))
+	u := t.Neg().Exp()
+	coth := one.Add(u).Quo(one.Sub(u))
+	ist := interval.C[T]{Re: t.Im.Mul(s0).Neg(), Im: t.Re.Mul(s0)} // i s0 t
+	ph := interval.C[T]{Re: coth.Im.Mul(e.c).Scale(1).Neg(), Im: coth.Re.Mul(e.c).Scale(1)}
+	f := ph.Sub(t.Scale(-1)).Sub(ist).Exp()
+	den := one.Add(u)
+	if e.kink {
+		return f.Mul(one.Sub(u)).Quo(den.Sqr())
+	}
+	return f.Quo(den)
+}
+
 // mag bounds |integrand(t) e^{-ist}| over the box t and all s in sr through
 // the single exponent -Re t/2 - 2c Im coth(t/2) + s Im t and |a(t)|.
 func (e *edgeTerm[T]) mag(t interval.C[T], sr T) T {
@@ -240,8 +256,15 @@ func (e *edgeTerm[T]) buildRule(idx int, lo, hi float64) (*pathRule[T], error) {
 	if X > last {
 		verts = append(verts, complex(X, beta))
 	}
+	// Reference point for the weights: the lower end for s >= 0 (then
+	// |e^{-i(s - s0)t}| = e^{(s - s0) Im t} <= 1 on the path, which lies in
+	// Im t <= 0), the centre of the narrow windows for s < 0.
+	sRef := lo
+	if idx < 0 {
+		sRef = (lo + hi) / 2
+	}
 	return buildPathRule(like, pathSpec[T]{
-		verts: verts, g: e.integrand, mag: e.mag, lam: 1, sr: sr,
+		verts: verts, g: e.integrand, gRef: e.integrandRef, sRef: sRef, mag: e.mag, lam: 1, sr: sr,
 		trunc: interval.Upper(gap.Add(tail)), truncD: interval.Upper(gapD.Add(tailD)),
 		tol: tol,
 	})

@@ -32,6 +32,12 @@ type pathRule[T interval.Real[T]] struct {
 	quad, trunc float64
 	fz, fh      []complex128
 	lamF        float64
+	// The weights h_j carry the factor e^{-i lam sRef z_j} for a reference
+	// point sRef of the s-range (when the spec gives gRef), and eval multiplies by
+	// e^{-i lam (s - sRef) z_j}: the integrand may overflow where its
+	// product with the s-factor does not.
+	sRef  T
+	sRefF float64
 }
 
 // pathPanel is one panel: nodes z_j = mid + offsets[kind][j] with weights h_j.
@@ -43,13 +49,18 @@ type pathPanel[T interval.Real[T]] struct {
 
 // pathSpec describes a path integral to be discretised.
 type pathSpec[T interval.Real[T]] struct {
-	verts  []complex128                        // polygon vertices (exact float64 points)
-	g      func(z interval.C[T]) interval.C[T] // the s-free integrand, for points and boxes
-	lam    int64                               // the frequency factor in e^{-i lam s z}
-	sr     T                                   // the s-range the rule must serve
-	trunc  T                                   // bound on the cut-off pieces of I
-	truncD T                                   // bound on the cut-off pieces of I'
-	tol    float64                             // remainder allowed per unit of path length
+	verts []complex128                        // polygon vertices (exact float64 points)
+	g     func(z interval.C[T]) interval.C[T] // the s-free integrand, for points and boxes
+	// gRef, if set, encloses g(z) e^{-i lam s0 z} at nodes in one exponent,
+	// with s0 = sRef (a point of the s-range chosen by the caller so that
+	// |e^{-i lam (s - s0) z}| stays moderate over the range and the path).
+	gRef   func(z interval.C[T], s0 T) interval.C[T]
+	sRef   float64
+	lam    int64   // the frequency factor in e^{-i lam s z}
+	sr     T       // the s-range the rule must serve
+	trunc  T       // bound on the cut-off pieces of I
+	truncD T       // bound on the cut-off pieces of I'
+	tol    float64 // remainder allowed per unit of path length
 	// mag, if set, bounds |g(z) e^{-i lam s z}| over a box z and all s in sr
 	// (combining the exponents avoids underflow against overflow).
 	mag func(z interval.C[T], sr T) T
@@ -76,7 +87,11 @@ func buildPathRule[T interval.Real[T]](like T, spec pathSpec[T]) (*pathRule[T], 
 		return nil, err
 	}
 	lam := like.Int(spec.lam)
-	r := &pathRule[T]{lam: lam, lamF: float64(spec.lam)}
+	r := &pathRule[T]{lam: lam, lamF: float64(spec.lam), sRef: like.Int(0)}
+	if spec.gRef != nil {
+		r.sRefF = spec.sRef
+		r.sRef = like.Float(r.sRefF)
+	}
 	total, totalD := like.Int(0), like.Int(0)
 	type seg struct{ a, b complex128 }
 	panels := 0
@@ -125,7 +140,13 @@ func buildPathRule[T interval.Real[T]](like T, spec pathSpec[T]) (*pathRule[T], 
 			pn := pathPanel[T]{mid: mid, kind: kind}
 			for j := range rule.x {
 				z := mid.Add(hv.MulReal(rule.x[j]))
-				h := spec.g(z).Mul(hv).MulReal(rule.w[j])
+				var gz interval.C[T]
+				if spec.gRef != nil {
+					gz = spec.gRef(z, r.sRef)
+				} else {
+					gz = spec.g(z)
+				}
+				h := gz.Mul(hv).MulReal(rule.w[j])
 				pn.z = append(pn.z, z)
 				pn.h = append(pn.h, h)
 				r.fz = append(r.fz, midC(z))
@@ -223,7 +244,7 @@ func ellipseMax[T interval.Real[T]](spec pathSpec[T], mid, hv interval.C[T], ax,
 // the offset factor e^{-i lam s hv x_j}, shared by all panels of one length
 // and direction.
 func (r *pathRule[T]) eval(s T, deriv bool) interval.C[T] {
-	ls := r.lam.Mul(s)
+	ls := r.lam.Mul(s.Sub(r.sRef))
 	factors := make([][]interval.C[T], len(r.offsets))
 	for k, off := range r.offsets {
 		f := make([]interval.C[T], len(off))
@@ -277,7 +298,7 @@ func expMinusI[T interval.Real[T]](ls T, z interval.C[T]) interval.C[T] {
 func (r *pathRule[T]) approx(s float64) complex128 {
 	var sum complex128
 	for j, z := range r.fz {
-		sum += r.fh[j] * cmplx.Exp(complex(0, -r.lamF*s)*z)
+		sum += r.fh[j] * cmplx.Exp(complex(0, -r.lamF*(s-r.sRefF))*z)
 	}
 	return sum
 }

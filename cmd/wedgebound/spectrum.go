@@ -145,9 +145,25 @@ func runSpectrum(args []string, stdout, stderr io.Writer) int {
 // any precision, with float64 cells first; with terms the cells use direct
 // enclosures.
 func spectrum[T interval.Real[T]](like T, rel regions.Relaxation[T], digits int, quadrant bool, progress func(stage string, done, total int)) ([2]T, error) {
-	// Push the tails out until the tail lemma's |B| bound is small.
+	// Push the tails out until the lemmas' |B| bound is small and the tail
+	// eigenvalue enclosures are narrow on both sides (a profile reaching
+	// xp = c keeps the bound on D large up to s ~ 2c).
 	Sv := int64(8)
-	for Sv < 1<<14 && rel.Tail(like.Int(Sv), -1).B.Re.Hi() > 0.002 {
+	small := func(S int64) bool {
+		for _, side := range []int{-1, 1} {
+			m := rel.Tail(like.Int(S), side)
+			if m.B.Re.Hi() > 0.002 && side < 0 {
+				return false
+			}
+			for _, e := range []regions.Edge{regions.Lower, regions.Upper} {
+				if v := m.Eig(e); !v.IsFinite() || v.Hi()-v.Lo() > 0.004 {
+					return false
+				}
+			}
+		}
+		return true
+	}
+	for Sv < 1<<14 && !small(Sv) {
 		Sv *= 2
 	}
 	S := like.Int(Sv)
