@@ -206,3 +206,25 @@ func TestBandToInfTail(t *testing.T) {
 		}
 	}
 }
+
+// TestEdgeLargeKnot checks a knot at c = 300, where the integrand alone
+// reaches e^{1000} on the path while its product with e^{-ist} stays below
+// 1: the enclosures must stay finite and narrow, and the |s|^{-3/4} lemma
+// must hold at the sampled points.
+func TestEdgeLargeKnot(t *testing.T) {
+	like := interval.PointF(0)
+	for _, kink := range []bool{false, true} {
+		e := newEdge(like.Float(300), 300, kink)
+		for _, s := range []float64{-3000, -250, 3, 2238.7} {
+			v, ok := e.value(like.Float(s), false)
+			if !ok || !v.IsFinite() || v.Re.Rad() > 1e-12 || v.Im.Rad() > 1e-12 {
+				t.Errorf("kink=%v s=%v: enclosure %v (ok %v)", kink, s, v, ok)
+			}
+			if s < -1000 {
+				if b := e.tail(like.Float(-s), -1).Hi(); cmplx.Abs(midC(v)) > b {
+					t.Errorf("kink=%v s=%v: |value| %.3g above the tail lemma %.3g", kink, s, cmplx.Abs(midC(v)), b)
+				}
+			}
+		}
+	}
+}
