@@ -129,48 +129,35 @@ func (e *edgeTerm[T]) rangeOf(idx int) (float64, float64) {
 // integrand encloses e^{-t/2} e^{2ic coth(t/2)} a(t) with a(t) = 1/(1+e^{-t})
 // (jump) or (1-e^{-t})/(1+e^{-t})^2 (kink).
 func (e *edgeTerm[T]) integrand(t interval.C[T]) interval.C[T] {
+	return e.integrandRef(t, t.Re.Int(0))
+}
+
+// cothAmp encloses coth(t/2) and the amplitude a(t), both from e^{-t}.
+func (e *edgeTerm[T]) cothAmp(t interval.C[T]) (coth, a interval.C[T]) {
 	one := interval.RealC(t.Re.Int(1))
 	u := t.Neg().Exp()
-	coth := one.Add(u).Quo(one.Sub(u))
-	ph := interval.C[T]{Re: coth.Im.Mul(e.c).Scale(1).Neg(), Im: coth.Re.Mul(e.c).Scale(1)}
-	f := t.Scale(-1).Neg().Exp().Mul(ph.Exp())
+	coth = one.Add(u).Quo(one.Sub(u))
 	den := one.Add(u)
 	if e.kink {
-		return f.Mul(one.Sub(u)).Quo(den.Sqr())
+		return coth, one.Sub(u).Quo(den.Sqr())
 	}
-	return f.Quo(den)
+	return coth, one.Quo(den)
 }
 
 // integrandRef encloses integrand(t) e^{-i s0 t} through the single
 // exponent -t/2 + 2ic coth(t/2) - i s0 t.
 func (e *edgeTerm[T]) integrandRef(t interval.C[T], s0 T) interval.C[T] {
-	one := interval.RealC(t.Re.Int(1))
-	u := t.Neg().Exp()
-	coth := one.Add(u).Quo(one.Sub(u))
+	coth, a := e.cothAmp(t)
 	ist := interval.C[T]{Re: t.Im.Mul(s0).Neg(), Im: t.Re.Mul(s0)} // i s0 t
 	ph := interval.C[T]{Re: coth.Im.Mul(e.c).Scale(1).Neg(), Im: coth.Re.Mul(e.c).Scale(1)}
-	f := ph.Sub(t.Scale(-1)).Sub(ist).Exp()
-	den := one.Add(u)
-	if e.kink {
-		return f.Mul(one.Sub(u)).Quo(den.Sqr())
-	}
-	return f.Quo(den)
+	return ph.Sub(t.Scale(-1)).Sub(ist).Exp().Mul(a)
 }
 
 // mag bounds |integrand(t) e^{-ist}| over the box t and all s in sr through
 // the single exponent -Re t/2 - 2c Im coth(t/2) + s Im t and |a(t)|.
 func (e *edgeTerm[T]) mag(t interval.C[T], sr T) T {
-	one := interval.RealC(t.Re.Int(1))
-	u := t.Neg().Exp()
-	coth := one.Add(u).Quo(one.Sub(u))
+	coth, a := e.cothAmp(t)
 	ex := t.Re.Scale(-1).Neg().Sub(coth.Im.Mul(e.c).Scale(1)).Add(sr.Mul(t.Im))
-	den := one.Add(u)
-	var a interval.C[T]
-	if e.kink {
-		a = one.Sub(u).Quo(den.Sqr())
-	} else {
-		a = one.Quo(den)
-	}
 	return interval.Upper(interval.Exp(ex).Mul(a.Re.Abs().Add(a.Im.Abs())))
 }
 
