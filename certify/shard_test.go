@@ -7,6 +7,7 @@ import (
 
 	"wedgebound/certificates"
 	"wedgebound/certificates/recheck"
+	_ "wedgebound/certificates/recheck/relaxation" // registers the kind
 	"wedgebound/regions"
 )
 

@@ -9,6 +9,7 @@ import (
 
 	"wedgebound/certificates"
 	"wedgebound/certificates/recheck"
+	_ "wedgebound/certificates/recheck/strip" // registers the kind
 )
 
 // strip --out writes a sealed strip-bracket certificate atomically, and the

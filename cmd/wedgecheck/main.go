@@ -44,6 +44,11 @@ import (
 
 	"wedgebound/certificates"
 	"wedgebound/certificates/recheck"
+
+	// The certificate kinds this command checks, one line each (each
+	// registers itself with recheck; the names are used by the printers).
+	"wedgebound/certificates/recheck/relaxation"
+	"wedgebound/certificates/recheck/strip"
 )
 
 // Exit statuses.
@@ -147,17 +152,17 @@ func checkFile(path string, opt recheck.Options) (fileReport, int) {
 	}
 	c, err := certificates.Decode(data)
 	if errors.Is(err, certificates.ErrStaleHash) && c != nil {
-		h, herr := certificates.Hash(c)
-		if herr != nil {
+		var stale *recheck.StaleHashError
+		herr := recheck.CheckHash(c)
+		if !errors.As(herr, &stale) {
+			if herr == nil {
+				herr = err
+			}
 			rep.Error = oneLine(herr.Error())
 			return done(statusError, exitMalformed)
 		}
-		rep.StaleHash = &staleHash{Recorded: c.SHA256, Content: h}
-		if c.SHA256 == "" {
-			rep.Error = fmt.Sprintf("stale hash: the certificate records no sha256 (it was never sealed; its content hashes to %s), so none of its claims is checked", h)
-		} else {
-			rep.Error = fmt.Sprintf("stale hash: the recorded sha256 %s does not match the content, which hashes to %s; the file was changed after it was sealed, so none of its claims is checked", c.SHA256, h)
-		}
+		rep.StaleHash = &staleHash{Recorded: stale.Recorded, Content: stale.Content}
+		rep.Error = stale.Error()
 		return done(statusFail, exitFail)
 	}
 	if err != nil {
@@ -191,11 +196,11 @@ func staleDespiteInvalid(data []byte) (recorded, content string, stale bool) {
 	if err := json.Unmarshal(data, &c); err != nil || c.SHA256 == "" {
 		return "", "", false
 	}
-	h, err := certificates.Hash(&c)
-	if err != nil || h == c.SHA256 {
+	var e *recheck.StaleHashError
+	if !errors.As(recheck.CheckHash(&c), &e) {
 		return "", "", false
 	}
-	return c.SHA256, h, true
+	return e.Recorded, e.Content, true
 }
 
 // failureText writes a failure in one line: where, what, by how much.
@@ -224,11 +229,20 @@ func printText(w io.Writer, r fileReport) {
 		fmt.Fprintf(w, "      %s\n", r.Error)
 		return
 	}
-	res := r.Result
-	if res.Strip != nil {
-		printStripText(w, r)
-		return
+	switch d := r.Result.Detail.(type) {
+	case *relaxation.Detail:
+		printRelaxationText(w, r, d)
+	case *strip.Detail:
+		printStripText(w, r, d)
+	default:
+		printGenericText(w, r)
 	}
+}
+
+// printRelaxationText writes the report of a halfplane-relaxation
+// certificate.
+func printRelaxationText(w io.Writer, r fileReport, d *relaxation.Detail) {
+	res := r.Result
 	fmt.Fprintf(w, "      problem: %s\n", res.Problem)
 	if res.Pass {
 		fmt.Fprintf(w, "      proved:  %s\n", res.Statement)
@@ -240,11 +254,30 @@ func printText(w io.Writer, r fileReport) {
 	} else {
 		printFailures(w, res, "bound")
 	}
-	fmt.Fprintf(w, "      checked: %d cells on [%s, %s] as %d pieces", res.Cells, res.Range[0], res.Range[1], res.Pieces)
-	if res.HighPrecision > 0 {
-		fmt.Fprintf(w, " (%d at high precision)", res.HighPrecision)
+	fmt.Fprintf(w, "      checked: %d cells on [%s, %s] as %d pieces", d.Cells, d.Range[0], d.Range[1], d.Pieces)
+	if d.HighPrecision > 0 {
+		fmt.Fprintf(w, " (%d at high precision)", d.HighPrecision)
 	}
 	fmt.Fprintf(w, ", and both tails, in %.2f s\n", r.Seconds)
+	for _, n := range res.Notes {
+		fmt.Fprintf(w, "      note: %s\n", n)
+	}
+}
+
+// printGenericText writes the kind-neutral part of a result, for kinds
+// without a printer of their own.
+func printGenericText(w io.Writer, r fileReport) {
+	res := r.Result
+	fmt.Fprintf(w, "      problem: %s\n", res.Problem)
+	if res.Pass {
+		fmt.Fprintf(w, "      proved:  %s\n", res.Statement)
+		if res.Recomputed != "" {
+			fmt.Fprintf(w, "      recomputed: %s\n", res.Recomputed)
+		}
+	} else {
+		printFailures(w, res, "bound")
+	}
+	fmt.Fprintf(w, "      checked in %.2f s\n", r.Seconds)
 	for _, n := range res.Notes {
 		fmt.Fprintf(w, "      note: %s\n", n)
 	}

@@ -4,12 +4,13 @@ import (
 	"fmt"
 	"io"
 	"sort"
+
+	"wedgebound/certificates/recheck/strip"
 )
 
 // printStripText writes the report of a strip-bracket certificate.
-func printStripText(w io.Writer, r fileReport) {
+func printStripText(w io.Writer, r fileReport, s *strip.Detail) {
 	res := r.Result
-	s := res.Strip
 	fmt.Fprintf(w, "      problem: %s\n", res.Problem)
 	if res.Pass {
 		fmt.Fprintf(w, "      proved:  %s\n", res.Statement)

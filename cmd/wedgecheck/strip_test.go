@@ -9,6 +9,7 @@ import (
 	"testing"
 
 	"wedgebound/certificates"
+	"wedgebound/certificates/recheck/strip"
 )
 
 const shippedStrip = "../../testdata/strip-alpha50.json"
@@ -39,7 +40,7 @@ func TestStripShippedPasses(t *testing.T) {
 	if err := json.Unmarshal([]byte(js), &reps); err != nil || code != exitPass || len(reps) != 1 {
 		t.Fatalf("--json: exit %d, %v:\n%s", code, err, js)
 	}
-	if s := reps[0].Result.Strip; s == nil || s.BasisSize < 1 || s.AdvantageProved.Lower == "" {
+	if s, _ := reps[0].Result.Detail.(*strip.Detail); s == nil || s.BasisSize < 1 || s.AdvantageProved.Lower == "" {
 		t.Errorf("--json lacks the strip details: %s", js)
 	}
 }

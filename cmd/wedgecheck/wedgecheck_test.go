@@ -12,7 +12,7 @@ import (
 	"testing"
 
 	"wedgebound/certificates"
-	"wedgebound/certificates/recheck"
+	"wedgebound/certificates/recheck/relaxation"
 )
 
 // checkAll runs the command with --json on one file and returns the exit
@@ -471,7 +471,7 @@ func TestJSONOutput(t *testing.T) {
 		t.Fatalf("%+v", reps)
 	}
 	r := reps[0].Result
-	if r.Edge != recheck.Upper || r.Bound != "1.0077" || r.Cells == 0 || r.Recomputed == "" {
+	if d, _ := r.Detail.(*relaxation.Detail); d == nil || d.Edge != relaxation.Upper || r.Bound != "1.0077" || d.Cells == 0 || r.Recomputed == "" {
 		t.Errorf("%+v", r)
 	}
 }

@@ -1,4 +1,4 @@
-package recheck
+package checknum
 
 import (
 	"math"
@@ -10,18 +10,18 @@ import (
 // Simpson's rule is the 3-point Clenshaw-Curtis rule: weights 1/3, 4/3,
 // 1/3 on the nodes 1, 0, -1 (classical; e.g. any numerical analysis text).
 func TestClenshawCurtisSimpson(t *testing.T) {
-	r, err := clenshawCurtis(interval.F{}, 2)
+	r, err := ClenshawCurtis(interval.F{}, 2)
 	if err != nil {
 		t.Fatal(err)
 	}
 	want := []interval.F{interval.F{}.Frac(1, 3), interval.F{}.Frac(4, 3), interval.F{}.Frac(1, 3)}
 	for j := range want {
-		if r.w[j].Less(want[j]) || want[j].Less(r.w[j]) || r.w[j].Rad() > 1e-14 {
-			t.Errorf("w[%d] = %v, want 1/3, 4/3, 1/3", j, r.w[j])
+		if r.W[j].Less(want[j]) || want[j].Less(r.W[j]) || r.W[j].Rad() > 1e-14 {
+			t.Errorf("w[%d] = %v, want 1/3, 4/3, 1/3", j, r.W[j])
 		}
 	}
-	if !r.x[0].Contains(interval.F{}.Int(1)) || !r.x[2].Contains(interval.F{}.Int(-1)) || !r.x[1].Contains(interval.F{}.Int(0)) {
-		t.Errorf("nodes %v", r.x)
+	if !r.X[0].Contains(interval.F{}.Int(1)) || !r.X[2].Contains(interval.F{}.Int(-1)) || !r.X[1].Contains(interval.F{}.Int(0)) {
+		t.Errorf("nodes %v", r.X)
 	}
 }
 
@@ -29,6 +29,8 @@ func TestClenshawCurtisSimpson(t *testing.T) {
 // even k and 0 for odd k (classical identity), for k <= n; and the rule
 // must reproduce it for every n used.
 func TestClenshawCurtisExact(t *testing.T) {
+	// The sizes the relaxation verifier uses.
+	ccSizes := []int{6, 8, 12, 16, 20, 24, 32, 40, 48, 64, 80, 96, 128}
 	for _, n := range ccSizes {
 		checkExact(t, interval.F{}, n)
 		if n <= 24 {
@@ -38,16 +40,16 @@ func TestClenshawCurtisExact(t *testing.T) {
 }
 
 func checkExact[T interval.Real[T]](t *testing.T, like T, n int) {
-	r, err := clenshawCurtis(like, n)
+	r, err := ClenshawCurtis(like, n)
 	if err != nil {
 		t.Fatal(err)
 	}
 	for k := 0; k <= n; k++ {
 		sum := like.Int(0)
-		for j := range r.x {
+		for j := range r.X {
 			// T_k(x_j) = cos(k j pi/n) (the definition of T_k on the node).
 			tk := interval.Cos(like.Pi().Mul(like.Frac(int64((k*j)%(2*n)), int64(n))))
-			sum = sum.Add(r.w[j].Mul(tk))
+			sum = sum.Add(r.W[j].Mul(tk))
 		}
 		want := like.Int(0)
 		if k%2 == 0 {
@@ -60,8 +62,8 @@ func checkExact[T interval.Real[T]](t *testing.T, like T, n int) {
 			t.Errorf("prec %d n=%d k=%d: enclosure too wide %v", like.Prec(), n, k, sum)
 		}
 	}
-	if r.wabs.Hi() > 2+1e-9 || r.wabs.Lo() < 2-1e-9 {
-		t.Errorf("n=%d: sum |w| = %v; the weights are positive and sum to 2", n, r.wabs)
+	if r.WAbs.Hi() > 2+1e-9 || r.WAbs.Lo() < 2-1e-9 {
+		t.Errorf("n=%d: sum |w| = %v; the weights are positive and sum to 2", n, r.WAbs)
 	}
 }
 
@@ -72,7 +74,7 @@ func checkExact[T interval.Real[T]](t *testing.T, like T, n int) {
 func TestClenshawCurtisBound(t *testing.T) {
 	like := interval.NewB(0, 300)
 	for _, n := range []int{6, 12, 24, 48} {
-		r, _ := clenshawCurtis(like, n)
+		r, _ := ClenshawCurtis(like, n)
 		for _, tc := range []struct {
 			name  string
 			f     func(x interval.B) interval.B
@@ -94,12 +96,12 @@ func TestClenshawCurtisBound(t *testing.T) {
 				}, []float64{2, 5, 10}},
 		} {
 			sum := like.Int(0)
-			for j := range r.x {
-				sum = sum.Add(r.w[j].Mul(tc.f(r.x[j])))
+			for j := range r.X {
+				sum = sum.Add(r.W[j].Mul(tc.f(r.X[j])))
 			}
 			errAbs := sum.Sub(tc.exact).Abs()
 			for _, rho := range tc.rhos {
-				b := r.bound(tc.m(rho), like.Float(rho))
+				b := r.Bound(tc.m(rho), like.Float(rho))
 				if b.Less(errAbs) {
 					t.Errorf("%s n=%d rho=%g: error %v exceeds the bound %v", tc.name, n, rho, errAbs, b)
 				}

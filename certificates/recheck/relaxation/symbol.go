@@ -1,4 +1,4 @@
-package recheck
+package relaxation
 
 import (
 	"errors"

@@ -1,13 +1,11 @@
-package recheck
+package strip
 
 import (
 	"fmt"
 	"math"
 	"math/big"
-	"runtime"
-	"sync"
-	"sync/atomic"
 
+	"wedgebound/certificates/recheck/checknum"
 	"wedgebound/interval"
 )
 
@@ -33,43 +31,11 @@ type stripRule struct {
 	wsum interval.F   // upper bound on sum_a w_a (= sum |w_a|)
 }
 
-// stripParallel runs body(i), i in [0, n), on up to workers goroutines.
-func stripParallel(n, workers int, body func(i int)) {
-	if workers <= 0 {
-		workers = runtime.GOMAXPROCS(0)
-	}
-	if workers > n {
-		workers = n
-	}
-	if workers <= 1 {
-		for i := 0; i < n; i++ {
-			body(i)
-		}
-		return
-	}
-	var next atomic.Int64
-	var wg sync.WaitGroup
-	for w := 0; w < workers; w++ {
-		wg.Add(1)
-		go func() {
-			defer wg.Done()
-			for {
-				i := int(next.Add(1)) - 1
-				if i >= n {
-					return
-				}
-				body(i)
-			}
-		}()
-	}
-	wg.Wait()
-}
-
 // newStripRule builds the rule with n+1 nodes, n even >= 2.
 //
 // Weights: w_a = g_a (4/n) sum~_{m=0}^{n/2} cos(2 m a pi/n)/(1 - 4 m^2),
 // g_a = 1/2 at a = 0, n and 1 otherwise, sum~ halving its first and last
-// terms (the derivation is in the ccRule comment); cos(p pi/n) is read off
+// terms (the derivation is in the checknum.Rule comment); cos(p pi/n) is read off
 // the node table (cos(p pi/n) = s_p for p <= n and s_{2n-p} for p < 2n),
 // and w_{n-a} = w_a exactly because the terms are the same.
 func newStripRule(n, workers int) (*stripRule, error) {
@@ -79,7 +45,7 @@ func newStripRule(n, workers int) (*stripRule, error) {
 	half := n / 2
 	z := interval.NewB(0, stripNodePrec)
 	r := &stripRule{n: n, node: make([]interval.B, n+1), sqw: make([]interval.B, n+1)}
-	stripParallel(half+1, workers, func(a int) {
+	checknum.For(half+1, workers, func(a int) {
 		var s interval.B
 		switch {
 		case a == 0:
@@ -105,7 +71,7 @@ func newStripRule(n, workers int) (*stripRule, error) {
 		inv[m] = zw.Int(1).Quo(zw.Int(int64(1 - 4*m*m)))
 	}
 	w := make([]interval.B, half+1)
-	stripParallel(half+1, workers, func(a int) {
+	checknum.For(half+1, workers, func(a int) {
 		sum := zw.Int(0)
 		for m := 0; m <= half; m++ {
 			t := cosTab(2 * m * a).Mul(inv[m])
@@ -155,7 +121,7 @@ type stripNodes struct {
 func (r *stripRule) nodeData(alpha interval.B, workers int) *stripNodes {
 	m := r.n + 1
 	nd := &stripNodes{head: make([]float64, m), tail: make([]interval.F, m), sin: make([]interval.F, m), cos: make([]interval.F, m)}
-	stripParallel(m, workers, func(a int) {
+	checknum.For(m, workers, func(a int) {
 		x := r.node[a].Sub(r.node[a].Int(1)).Scale(-1)
 		h := x.Mid().Lo()
 		hb := new(big.Float).SetFloat64(h)
@@ -262,7 +228,7 @@ func (r *stripRule) rows(N int, coef [2][]interval.B, workers int) *stripRows {
 		sq[j] = zb.Int(int64(2*j + 1)).Sqrt()
 	}
 	rad2 := make([]interval.F, half+1)
-	stripParallel(half+1, workers, func(a int) {
+	checknum.For(half+1, workers, func(a int) {
 		s := r.node[a]
 		c := s.Mid().WithPrec(prec)
 		lo, hi := s.Endpoints()

@@ -1,106 +1,62 @@
-package recheck
+package relaxation
 
 import (
-	"errors"
 	"fmt"
 	"math/big"
 	"runtime"
 	"sort"
 	"strings"
 	"sync"
-	"time"
 
 	"wedgebound/certificates"
+	"wedgebound/certificates/recheck"
+	"wedgebound/certificates/recheck/checknum"
 	"wedgebound/interval"
 )
 
-// ErrUnsupported is wrapped by Verify's error for a certificate kind this
-// version cannot check.
-var ErrUnsupported = errors.New("not supported by this version of the verifier")
+func init() { recheck.Register(certificates.KindRelaxation, Checker{}) }
 
-// Options tunes the verification; the zero value is sensible.
-type Options struct {
-	// Workers is the number of goroutines over cells (0: GOMAXPROCS). The
-	// result does not depend on it.
-	Workers int
-	// MaxDepth bounds the bisection of one recorded cell when the first
-	// enclosure is too wide to decide the claim (0: 10, that is up to 1024
-	// pieces per cell).
-	MaxDepth int
-	// NoTailExtension forbids covering more of s beyond a recorded tail
-	// start when the verifier's tail lemma is too weak there.
-	NoTailExtension bool
-	// NoHighPrecision forbids the retry at high precision of pieces that
-	// float64 intervals cannot decide.
-	NoHighPrecision bool
+// Checker verifies halfplane-relaxation certificates; the package
+// registers it with recheck for certificates.KindRelaxation.
+type Checker struct{}
+
+// NewDetail returns an empty *Detail (recheck.DetailDecoder).
+func (Checker) NewDetail() any { return new(Detail) }
+
+// Detail is what the relaxation verifier records besides the kind-neutral
+// fields of recheck.Result.
+type Detail struct {
+	// Edge is the claimed edge.
+	Edge Edge `json:"edge"`
+	// Cells is the number of recorded cells, Pieces the number of pieces the
+	// verifier evaluated (after its own subdivision), HighPrecision how many
+	// of them needed big-float intervals.
+	Cells         int `json:"cells"`
+	Pieces        int `json:"pieces"`
+	HighPrecision int `json:"high_precision_pieces"`
+	// Range is the recorded cover [lo, hi] of s.
+	Range [2]string `json:"range"`
 }
 
-// Failure is one claim that does not hold.
-type Failure struct {
-	// Where names the part of the certificate: "normal_form", "terms[i]",
-	// "cover[i]", "tail_below", "tail_above" or "claim".
-	Where string `json:"where"`
-	// Lo and Hi give the range of s concerned (empty when not applicable).
-	Lo string `json:"s_lo,omitempty"`
-	Hi string `json:"s_hi,omitempty"`
-	// Message explains what was found.
-	Message string `json:"message"`
-	// By is how far the failing quantity is on the wrong side, rounded
-	// outward (empty when not a number).
-	By string `json:"by,omitempty"`
-	// Refuted is true when the verifier exhibits a point where the claim is
-	// false, rather than merely failing to prove it.
-	Refuted bool `json:"refuted"`
-	// Bound is true when the failure concerns the claimed bound itself (the
-	// eigenvalue crossing it), false for other recorded numbers and for the
-	// structure.
-	Bound bool `json:"bound"`
+// failure is a recheck.Failure with its sort key (part of the
+// certificate, then s increasing).
+type failure struct {
+	Where, Lo, Hi, Message, By string
+	Refuted, Bound             bool
 
 	order int
 	s     *big.Rat
 }
 
-// Result is the outcome of verifying one certificate.
-type Result struct {
-	Pass bool `json:"pass"`
-	// Edge and Problem describe the problem; Bound is the claimed bound.
-	Edge    Edge   `json:"edge"`
-	Problem string `json:"problem"`
-	Bound   string `json:"bound"`
-	// Statement is the claim in words (lower: lambda_min >= -Bound).
-	Statement string `json:"statement"`
-	// Recomputed is the verifier's own proved bound on the edge quantity
-	// over the checked range (for edge lower the largest number x with
-	// lambda_min >= -x shown; for edge upper the smallest x with
-	// lambda_max <= x), rounded outward; empty when a check failed early.
-	Recomputed string `json:"recomputed,omitempty"`
-	// Cells is the number of recorded cells, Pieces the number of pieces the
-	// verifier evaluated (after its own subdivision), HighPrecision how many
-	// of them needed big-float intervals.
-	Cells         int       `json:"cells"`
-	Pieces        int       `json:"pieces"`
-	HighPrecision int       `json:"high_precision_pieces"`
-	Range         [2]string `json:"range"`
-	Notes         []string  `json:"notes,omitempty"`
-	// Failures lists every claim found not to hold, first by position
-	// (structure, then s increasing).
-	Failures []Failure     `json:"failures,omitempty"`
-	Elapsed  time.Duration `json:"elapsed_ns"`
-	// Strip holds the details of a strip-bracket verification (nil for
-	// other kinds).
-	Strip *StripResult `json:"strip,omitempty"`
-}
-
-// Verify recomputes everything the claim of c rests on. It returns an error
-// (wrapping ErrUnsupported) only for a certificate kind it cannot check;
-// every failed claim is reported in the result.
-func Verify(c *certificates.Certificate, opt Options) (*Result, error) {
-	start := time.Now()
-	if c.Kind == certificates.KindStrip && c.Strip != nil {
-		return verifyStrip(c, opt, start)
-	}
-	if c.Kind != certificates.KindRelaxation || c.Relaxation == nil {
-		return nil, fmt.Errorf("certificate kind %q is %w (it checks %q and %q)", c.Kind, ErrUnsupported, certificates.KindRelaxation, certificates.KindStrip)
+// Check recomputes everything the claim of a halfplane-relaxation
+// certificate rests on (see the package comment). Result.Statement is the
+// claim in words (lower: lambda_min >= -Bound); Result.Recomputed is the
+// verifier's own proved bound on the edge quantity over the checked range
+// (for edge lower the largest number x with lambda_min >= -x shown; for
+// edge upper the smallest x with lambda_max <= x), rounded outward.
+func (Checker) Check(c *certificates.Certificate, opt recheck.Options) (*recheck.Result, error) {
+	if c.Relaxation == nil {
+		return nil, fmt.Errorf("%s certificate without its %q section", c.Kind, "relaxation")
 	}
 	if opt.Workers <= 0 {
 		opt.Workers = runtime.GOMAXPROCS(0)
@@ -109,11 +65,12 @@ func Verify(c *certificates.Certificate, opt Options) (*Result, error) {
 		opt.MaxDepth = 10
 	}
 	rel := c.Relaxation
-	v := &verifier{rel: rel, opt: opt, res: &Result{Edge: Edge(rel.Claim.Edge), Bound: rel.Claim.Bound, Cells: len(rel.Cover)}}
+	v := &verifier{rel: rel, opt: opt, res: &recheck.Result{Bound: rel.Claim.Bound},
+		det: &Detail{Edge: Edge(rel.Claim.Edge), Cells: len(rel.Cover)}}
 	v.res.Problem = describe(rel.Problem)
 	v.run()
-	sort.SliceStable(v.res.Failures, func(i, j int) bool {
-		a, b := v.res.Failures[i], v.res.Failures[j]
+	sort.SliceStable(v.fails, func(i, j int) bool {
+		a, b := v.fails[i], v.fails[j]
 		if a.order != b.order {
 			return a.order < b.order
 		}
@@ -122,15 +79,19 @@ func Verify(c *certificates.Certificate, opt Options) (*Result, error) {
 		}
 		return false
 	})
-	v.res.Pass = len(v.res.Failures) == 0
-	v.res.Elapsed = time.Since(start)
+	for _, f := range v.fails {
+		v.res.Failures = append(v.res.Failures, recheck.Failure{Where: f.Where, Lo: f.Lo, Hi: f.Hi, Message: f.Message, By: f.By, Refuted: f.Refuted, Bound: f.Bound})
+	}
+	v.res.Detail = v.det
 	return v.res, nil
 }
 
 type verifier struct {
 	rel   *certificates.Relaxation
-	opt   Options
-	res   *Result
+	opt   recheck.Options
+	res   *recheck.Result
+	det   *Detail
+	fails []failure
 	edge  Edge
 	bound *big.Rat
 	thr   *big.Rat // the edge eigenvalue must stay >= thr (lower) or <= thr (upper)
@@ -151,9 +112,9 @@ const (
 	orderTailAbove
 )
 
-func (v *verifier) fail(f Failure) {
+func (v *verifier) fail(f failure) {
 	v.mu.Lock()
-	v.res.Failures = append(v.res.Failures, f)
+	v.fails = append(v.fails, f)
 	v.mu.Unlock()
 }
 
@@ -166,17 +127,17 @@ func (v *verifier) note(s string) {
 func (v *verifier) run() {
 	rel := v.rel
 	if sh := rel.Shard; sh != nil {
-		v.fail(Failure{Where: "shard", Message: fmt.Sprintf("partial certificate (shard %d of %d): its cells cover only part of [%s, %s], so it proves nothing on its own; join all shards with wedgebound merge", sh.Index+1, sh.Count, sh.Lo, sh.Hi)})
+		v.fail(failure{Where: "shard", Message: fmt.Sprintf("partial certificate (shard %d of %d): its cells cover only part of [%s, %s], so it proves nothing on its own; join all shards with wedgebound merge", sh.Index+1, sh.Count, sh.Lo, sh.Hi)})
 		return
 	}
 	v.edge = Edge(rel.Claim.Edge)
 	if v.edge != Lower && v.edge != Upper {
-		v.fail(Failure{Where: "claim", Message: fmt.Sprintf("claim.edge must be %q or %q, not %q", Lower, Upper, rel.Claim.Edge)})
+		v.fail(failure{Where: "claim", Message: fmt.Sprintf("claim.edge must be %q or %q, not %q", Lower, Upper, rel.Claim.Edge)})
 		return
 	}
 	b, err := certificates.Dec(rel.Claim.Bound, "claim.bound")
 	if err != nil {
-		v.fail(Failure{Where: "claim", Message: err.Error()})
+		v.fail(failure{Where: "claim", Message: err.Error()})
 		return
 	}
 	v.bound = b
@@ -188,18 +149,18 @@ func (v *verifier) run() {
 		v.res.Statement = fmt.Sprintf("lambda_max(M(s)) <= %s for every real s, so sup spec P Op(chi_W) P <= %s", rel.Claim.Bound, rel.Claim.Bound)
 	}
 	if rel.Problem.Edge != rel.Claim.Edge {
-		v.fail(Failure{Where: "claim", Message: fmt.Sprintf("claim.edge %q differs from problem.edge %q", rel.Claim.Edge, rel.Problem.Edge)})
+		v.fail(failure{Where: "claim", Message: fmt.Sprintf("claim.edge %q differs from problem.edge %q", rel.Claim.Edge, rel.Problem.Edge)})
 	}
-	v.res.Range = [2]string{rel.Cover[0].Lo, rel.Cover[len(rel.Cover)-1].Hi}
+	v.det.Range = [2]string{rel.Cover[0].Lo, rel.Cover[len(rel.Cover)-1].Hi}
 
 	// Geometry and admissibility, exactly.
 	nf, err := Recompute(rel.Problem)
 	if err != nil {
-		v.fail(Failure{Where: "problem", Message: err.Error()})
+		v.fail(failure{Where: "problem", Message: err.Error()})
 		return
 	}
 	if err := nf.Compare(rel.Normal); err != nil {
-		v.fail(Failure{Where: "normal_form", Message: err.Error()})
+		v.fail(failure{Where: "normal_form", Message: err.Error()})
 	}
 	m, err := NewModel(interval.F{}, v.edge, rel.Terms)
 	if err != nil {
@@ -207,7 +168,7 @@ func (v *verifier) run() {
 		if i := strings.Index(err.Error(), ":"); i > 0 && strings.HasPrefix(err.Error(), "terms[") {
 			where = err.Error()[:i]
 		}
-		v.fail(Failure{Where: where, Message: err.Error()})
+		v.fail(failure{Where: where, Message: err.Error()})
 		return
 	}
 	v.mF = m
@@ -215,19 +176,19 @@ func (v *verifier) run() {
 		st := m.TermStart(i)
 		switch {
 		case nf.Threshold == nil:
-			v.fail(Failure{Where: fmt.Sprintf("terms[%d]", i), Message: "no quadrant-III profile is admissible for this problem (the vertex is inside the half-plane and a ray runs parallel to its boundary), so the relaxation does not agree with the wedge indicator on the half-plane"})
+			v.fail(failure{Where: fmt.Sprintf("terms[%d]", i), Message: "no quadrant-III profile is admissible for this problem (the vertex is inside the half-plane and a ray runs parallel to its boundary), so the relaxation does not agree with the wedge indicator on the half-plane"})
 		case st.Cmp(nf.Threshold) < 0:
-			v.fail(Failure{Where: fmt.Sprintf("terms[%d]", i), Message: fmt.Sprintf("the %q profile is nonzero from xp = %s on, but only profiles supported on xp >= %s vanish on the image half-plane; the relaxation would change the operator", rel.Terms[i].Kind, st.RatString(), nf.Threshold.RatString())})
+			v.fail(failure{Where: fmt.Sprintf("terms[%d]", i), Message: fmt.Sprintf("the %q profile is nonzero from xp = %s on, but only profiles supported on xp >= %s vanish on the image half-plane; the relaxation would change the operator", rel.Terms[i].Kind, st.RatString(), nf.Threshold.RatString())})
 		}
 	}
-	if len(v.res.Failures) > 0 {
+	if len(v.fails) > 0 {
 		return
 	}
 	v.checkRecorded()
 	v.checkCells()
 	v.checkTail(-1)
 	v.checkTail(1)
-	if w := v.worst; w != nil && len(v.res.Failures) == 0 {
+	if w := v.worst; w != nil && len(v.fails) == 0 {
 		if v.edge == Lower {
 			v.res.Recomputed = interval.DecimalUp(new(big.Float).Neg(w), 8)
 		} else {
@@ -245,14 +206,14 @@ func (v *verifier) checkRecorded() {
 		eu, _ := certificates.Dec(c.EigUpper, "eig_upper")
 		lo, _ := certificates.Dec(c.Lo, "lo")
 		if v.edge == Lower && el.Cmp(v.thr) < 0 {
-			v.fail(Failure{Where: fmt.Sprintf("cover[%d]", i), Lo: c.Lo, Hi: c.Hi, order: orderCover, s: lo,
+			v.fail(failure{Where: fmt.Sprintf("cover[%d]", i), Lo: c.Lo, Hi: c.Hi, order: orderCover, s: lo,
 				Message: fmt.Sprintf("the recorded enclosure [%s, %s] does not support the claim: its lower end is below -%s", c.EigLower, c.EigUpper, rel.Claim.Bound),
-				By:      ratDecimal(new(big.Rat).Sub(v.thr, el))})
+				By:      checknum.RatDecimal(new(big.Rat).Sub(v.thr, el))})
 		}
 		if v.edge == Upper && eu.Cmp(v.thr) > 0 {
-			v.fail(Failure{Where: fmt.Sprintf("cover[%d]", i), Lo: c.Lo, Hi: c.Hi, order: orderCover, s: lo,
+			v.fail(failure{Where: fmt.Sprintf("cover[%d]", i), Lo: c.Lo, Hi: c.Hi, order: orderCover, s: lo,
 				Message: fmt.Sprintf("the recorded enclosure [%s, %s] does not support the claim: its upper end is above %s", c.EigLower, c.EigUpper, rel.Claim.Bound),
-				By:      ratDecimal(new(big.Rat).Sub(eu, v.thr))})
+				By:      checknum.RatDecimal(new(big.Rat).Sub(eu, v.thr))})
 		}
 	}
 	for _, t := range []struct {
@@ -264,16 +225,16 @@ func (v *verifier) checkRecorded() {
 		tb, _ := certificates.Dec(t.tail.Bound, t.name+".bound")
 		from, _ := certificates.Dec(t.tail.From, t.name+".from")
 		lim := big.NewRat(int64(v.mF.TailLimit(t.side)), 1)
-		f := Failure{Where: t.name, Lo: t.tail.From, order: t.order, s: from}
+		f := failure{Where: t.name, Lo: t.tail.From, order: t.order, s: from}
 		if v.edge == Lower {
 			switch {
 			case tb.Cmp(v.thr) < 0:
 				f.Message = fmt.Sprintf("the recorded tail bound %s does not support the claim (it is below -%s)", t.tail.Bound, rel.Claim.Bound)
-				f.By = ratDecimal(new(big.Rat).Sub(v.thr, tb))
+				f.By = checknum.RatDecimal(new(big.Rat).Sub(v.thr, tb))
 				v.fail(f)
 			case tb.Cmp(lim) > 0:
 				f.Message = fmt.Sprintf("the recorded tail bound %s is false: lambda_min tends to %s as |s| grows, so it cannot stay above %s", t.tail.Bound, lim.RatString(), t.tail.Bound)
-				f.By = ratDecimal(new(big.Rat).Sub(tb, lim))
+				f.By = checknum.RatDecimal(new(big.Rat).Sub(tb, lim))
 				f.Refuted = true
 				v.fail(f)
 			}
@@ -281,11 +242,11 @@ func (v *verifier) checkRecorded() {
 			switch {
 			case tb.Cmp(v.thr) > 0:
 				f.Message = fmt.Sprintf("the recorded tail bound %s does not support the claim (it is above %s)", t.tail.Bound, rel.Claim.Bound)
-				f.By = ratDecimal(new(big.Rat).Sub(tb, v.thr))
+				f.By = checknum.RatDecimal(new(big.Rat).Sub(tb, v.thr))
 				v.fail(f)
 			case tb.Cmp(lim) < 0:
 				f.Message = fmt.Sprintf("the recorded tail bound %s is false: lambda_max tends to %s there, so it cannot stay below %s", t.tail.Bound, lim.RatString(), t.tail.Bound)
-				f.By = ratDecimal(new(big.Rat).Sub(lim, tb))
+				f.By = checknum.RatDecimal(new(big.Rat).Sub(lim, tb))
 				f.Refuted = true
 				v.fail(f)
 			}
@@ -349,7 +310,7 @@ func (v *verifier) piece(a, b *big.Rat, retry bool) (eLo, eHi, pLo, pHi, at *big
 // cellResult collects the verifier's findings on one recorded cell.
 type cellResult struct {
 	lo, hi  *big.Float // hull of the piece enclosures
-	failure *Failure
+	failure *failure
 	pieces  int
 	high    int
 	worst   *big.Float
@@ -358,7 +319,7 @@ type cellResult struct {
 	encs    [][2]*big.Float // piece enclosures and their pieces
 	encAt   [][2]*big.Rat
 	// recorded is a contradiction of the cell's recorded enclosure.
-	recorded *Failure
+	recorded *failure
 }
 
 func (v *verifier) checkCells() {
@@ -387,8 +348,8 @@ func (v *verifier) checkCells() {
 	wg.Wait()
 	for i, r := range results {
 		c := rel.Cover[i]
-		v.res.Pieces += r.pieces
-		v.res.HighPrecision += r.high
+		v.det.Pieces += r.pieces
+		v.det.HighPrecision += r.high
 		v.addWorst(r.worst)
 		lo, _ := certificates.Dec(c.Lo, "lo")
 		if r.failure != nil {
@@ -414,26 +375,26 @@ func (v *verifier) checkCells() {
 // it, a point value that misses it, and, when the verifier's hull reaches
 // well beyond the recorded enclosure, point values on a grid of the cell.
 // It returns nil when nothing contradicts the record.
-func (v *verifier) checkRecordedCell(c certificates.Cell, lo, hi *big.Rat, r *cellResult) *Failure {
+func (v *verifier) checkRecordedCell(c certificates.Cell, lo, hi *big.Rat, r *cellResult) *failure {
 	el, _ := certificates.Dec(c.EigLower, "eig_lower")
 	eu, _ := certificates.Dec(c.EigUpper, "eig_upper")
 	elF := new(big.Float).SetPrec(200).SetRat(el)
 	euF := new(big.Float).SetPrec(200).SetRat(eu)
 	miss := func(l, h *big.Float) bool { return h.Cmp(elF) < 0 || l.Cmp(euF) > 0 }
-	report := func(l, h *big.Float, what string) *Failure {
+	report := func(l, h *big.Float, what string) *failure {
 		var by *big.Float
 		if h.Cmp(elF) < 0 {
 			by = new(big.Float).Sub(elF, h)
 		} else {
 			by = new(big.Float).Sub(l, euF)
 		}
-		return &Failure{Refuted: true, By: interval.DecimalDown(by, 4),
+		return &failure{Refuted: true, By: interval.DecimalDown(by, 4),
 			Message: fmt.Sprintf("the recorded enclosure [%s, %s] is false: %s the eigenvalue lies in [%s, %s]",
 				c.EigLower, c.EigUpper, what, interval.DecimalDown(l, 10), interval.DecimalUp(h, 10))}
 	}
 	for j, e := range r.encs {
 		if miss(e[0], e[1]) {
-			return report(e[0], e[1], fmt.Sprintf("for every s in [%s, %s]", ratText(r.encAt[j][0]), ratText(r.encAt[j][1])))
+			return report(e[0], e[1], fmt.Sprintf("for every s in [%s, %s]", checknum.RatText(r.encAt[j][0]), checknum.RatText(r.encAt[j][1])))
 		}
 	}
 	for j, m := range r.mids {
@@ -461,7 +422,7 @@ func (v *verifier) checkRecordedCell(c certificates.Cell, lo, hi *big.Rat, r *ce
 		}
 		l, h := p.Mid.Endpoints()
 		if l != nil && h != nil && miss(l, h) {
-			return report(l, h, "at s = "+ratDecimal(s))
+			return report(l, h, "at s = "+checknum.RatDecimal(s))
 		}
 	}
 	return nil
@@ -497,7 +458,7 @@ func (v *verifier) cell(lo, hi *big.Rat) cellResult {
 		out.pieces++
 		eLo, eHi, mLo, mHi, at, high, err := v.piece(p.a, p.b, p.depth >= v.opt.MaxDepth)
 		if err != nil {
-			out.failure = &Failure{Message: err.Error()}
+			out.failure = &failure{Message: err.Error()}
 			return out
 		}
 		if high {
@@ -518,7 +479,7 @@ func (v *verifier) cell(lo, hi *big.Rat) cellResult {
 				by.Sub(mLo, by)
 				val = "lambda_max >= " + interval.DecimalDown(mLo, 10)
 			}
-			out.failure = &Failure{Refuted: true, Bound: true, By: interval.DecimalDown(by, 4),
+			out.failure = &failure{Refuted: true, Bound: true, By: interval.DecimalDown(by, 4),
 				Message: fmt.Sprintf("the claim is false: at s = %s the verifier finds %s, beyond the claimed %s%s", fmtF(at, 12), val, sgn(v.edge), v.rel.Claim.Bound)}
 			return out
 		}
@@ -536,12 +497,12 @@ func (v *verifier) cell(lo, hi *big.Rat) cellResult {
 				msg = "the verifier's enclosure is unbounded"
 			} else if v.edge == Lower {
 				by.Sub(by, eLo)
-				msg = fmt.Sprintf("not proved: on s in [%s, %s] the verifier's enclosure of lambda_min reaches down to %s, below -%s", ratText(p.a), ratText(p.b), interval.DecimalDown(eLo, 10), v.rel.Claim.Bound)
+				msg = fmt.Sprintf("not proved: on s in [%s, %s] the verifier's enclosure of lambda_min reaches down to %s, below -%s", checknum.RatText(p.a), checknum.RatText(p.b), interval.DecimalDown(eLo, 10), v.rel.Claim.Bound)
 			} else {
 				by.Sub(eHi, by)
-				msg = fmt.Sprintf("not proved: on s in [%s, %s] the verifier's enclosure of lambda_max reaches up to %s, above %s", ratText(p.a), ratText(p.b), interval.DecimalUp(eHi, 10), v.rel.Claim.Bound)
+				msg = fmt.Sprintf("not proved: on s in [%s, %s] the verifier's enclosure of lambda_max reaches up to %s, above %s", checknum.RatText(p.a), checknum.RatText(p.b), interval.DecimalUp(eHi, 10), v.rel.Claim.Bound)
 			}
-			f := &Failure{Message: msg, Bound: true}
+			f := &failure{Message: msg, Bound: true}
 			if eLo != nil && eHi != nil {
 				f.By = interval.DecimalUp(by, 4)
 			}
@@ -584,7 +545,7 @@ func (v *verifier) checkTail(side int) {
 	}
 	from, _ := certificates.Dec(t.From, name+".from")
 	if from.Sign() != side {
-		v.fail(Failure{Where: name, Lo: t.From, order: order, s: from, Message: fmt.Sprintf("%s starts at %s, on the wrong side of 0 (the cover must contain s = 0 in its interior)", name, t.From)})
+		v.fail(failure{Where: name, Lo: t.From, order: order, s: from, Message: fmt.Sprintf("%s starts at %s, on the wrong side of 0 (the cover must contain s = 0 in its interior)", name, t.From)})
 		return
 	}
 	// The recorded tail bound must hold at the tail's first point.
@@ -593,7 +554,7 @@ func (v *verifier) checkTail(side int) {
 		tbF := new(big.Float).SetPrec(200).SetRat(tb)
 		pl, ph := pt.Mid.Endpoints()
 		if v.edge == Lower && ph != nil && ph.Cmp(tbF) < 0 || v.edge == Upper && pl != nil && pl.Cmp(tbF) > 0 {
-			v.fail(Failure{Where: name, Lo: t.From, order: order, s: from, Refuted: true,
+			v.fail(failure{Where: name, Lo: t.From, order: order, s: from, Refuted: true,
 				Message: fmt.Sprintf("the recorded tail bound %s is false: at s = %s the eigenvalue lies in [%s, %s]", t.Bound, t.From, interval.DecimalDown(pl, 10), interval.DecimalUp(ph, 10))})
 			return
 		}
@@ -603,7 +564,7 @@ func (v *verifier) checkTail(side int) {
 	for {
 		enc, err := v.mF.Tail(cur, side)
 		if err != nil {
-			v.fail(Failure{Where: name, Lo: t.From, order: order, s: from, Message: err.Error()})
+			v.fail(failure{Where: name, Lo: t.From, order: order, s: from, Message: err.Error()})
 			return
 		}
 		lo, hi := enc.Endpoints()
@@ -618,7 +579,7 @@ func (v *verifier) checkTail(side int) {
 		if ok {
 			v.addWorst(end)
 			if cur.Cmp(from) != 0 {
-				v.note(fmt.Sprintf("%s: the verifier's tail lemma holds from s = %s; it covered [%s, %s] with its own cells", name, ratText(cur), ratText(minRat(from, cur)), ratText(maxRat(from, cur))))
+				v.note(fmt.Sprintf("%s: the verifier's tail lemma holds from s = %s; it covered [%s, %s] with its own cells", name, checknum.RatText(cur), checknum.RatText(minRat(from, cur)), checknum.RatText(maxRat(from, cur))))
 			}
 			return
 		}
@@ -633,8 +594,8 @@ func (v *verifier) checkTail(side int) {
 					by = new(big.Float).Sub(end, thr)
 				}
 			}
-			f := Failure{Where: name, Lo: t.From, order: order, s: from, Bound: true,
-				Message: fmt.Sprintf("not proved: the verifier's tail lemma at s = %s gives only %s %s, short of the claim", ratText(cur), map[Edge]string{Lower: "lambda_min >=", Upper: "lambda_max <="}[v.edge], fmtF(end, 10))}
+			f := failure{Where: name, Lo: t.From, order: order, s: from, Bound: true,
+				Message: fmt.Sprintf("not proved: the verifier's tail lemma at s = %s gives only %s %s, short of the claim", checknum.RatText(cur), map[Edge]string{Lower: "lambda_min >=", Upper: "lambda_max <="}[v.edge], fmtF(end, 10))}
 			if by != nil {
 				f.By = interval.DecimalUp(by, 4)
 			}
@@ -664,8 +625,8 @@ func (v *verifier) checkTail(side int) {
 		}
 		wg.Wait()
 		for i, r := range results {
-			v.res.Pieces += r.pieces
-			v.res.HighPrecision += r.high
+			v.det.Pieces += r.pieces
+			v.det.HighPrecision += r.high
 			if r.failure != nil {
 				f := *r.failure
 				lo := new(big.Rat).Add(a, new(big.Rat).Mul(w, big.NewRat(int64(i), 1)))
@@ -699,11 +660,6 @@ func fmtF(x *big.Float, digits int) string {
 		return "(unbounded)"
 	}
 	return x.Text('g', digits)
-}
-
-func ratDecimal(r *big.Rat) string {
-	f := new(big.Float).SetPrec(200).SetRat(r)
-	return interval.DecimalUp(f, 6)
 }
 
 // describe writes the problem in one line.

@@ -1,4 +1,7 @@
-package recheck
+// Package strip is the verifier of strip-bracket certificates; it
+// registers itself with wedgebound/certificates/recheck. What it
+// re-derives, and how, is listed below (Checker).
+package strip
 
 import (
 	"fmt"
@@ -10,6 +13,8 @@ import (
 	"time"
 
 	"wedgebound/certificates"
+	"wedgebound/certificates/recheck"
+	"wedgebound/certificates/recheck/checknum"
 	"wedgebound/interval"
 )
 
@@ -49,8 +54,9 @@ import (
 // kernel matrix is M^2 interval evaluations and the product U^T A U about
 // N M^2 exact multiply-adds; the Cholesky proofs are O(N^3).
 
-// StripResult is the outcome of verifying a strip certificate.
-type StripResult struct {
+// Detail is what the strip verifier records besides the kind-neutral
+// fields of recheck.Result.
+type Detail struct {
 	Alpha     string `json:"alpha"`
 	BasisSize int    `json:"basis_size"`
 	// RuleNodes is the number of Clenshaw-Curtis nodes the verifier used
@@ -92,15 +98,15 @@ const (
 
 type stripVerifier struct {
 	s     *certificates.Strip
-	opt   Options
-	res   *Result
-	sr    *StripResult
+	opt   recheck.Options
+	res   *recheck.Result
+	sr    *Detail
 	alpha interval.B
 	start time.Time
 	stage time.Time
 }
 
-func (v *stripVerifier) fail(f Failure) { v.res.Failures = append(v.res.Failures, f) }
+func (v *stripVerifier) fail(f recheck.Failure) { v.res.Failures = append(v.res.Failures, f) }
 
 func (v *stripVerifier) note(s string) { v.res.Notes = append(v.res.Notes, s) }
 
@@ -110,16 +116,29 @@ func (v *stripVerifier) lap(name string) {
 	v.stage = now
 }
 
-// verifyStrip checks a strip-bracket certificate (see the comment above).
-func verifyStrip(c *certificates.Certificate, opt Options, start time.Time) (*Result, error) {
+func init() { recheck.Register(certificates.KindStrip, Checker{}) }
+
+// Checker verifies strip-bracket certificates; the package registers it
+// with recheck for certificates.KindStrip.
+type Checker struct{}
+
+// NewDetail returns an empty *Detail (recheck.DetailDecoder).
+func (Checker) NewDetail() any { return new(Detail) }
+
+// Check verifies a strip-bracket certificate (see the package comment).
+func (Checker) Check(c *certificates.Certificate, opt recheck.Options) (*recheck.Result, error) {
+	if c.Strip == nil {
+		return nil, fmt.Errorf("%s certificate without its %q section", c.Kind, "strip")
+	}
+	start := time.Now()
 	if opt.Workers <= 0 {
 		opt.Workers = runtime.GOMAXPROCS(0)
 	}
 	s := c.Strip
 	v := &stripVerifier{s: s, opt: opt, start: start, stage: start,
-		res: &Result{Problem: stripDescribe(s), Bound: s.Advantage.Lower},
-		sr:  &StripResult{Alpha: s.Alpha.Value, BasisSize: s.BasisSize, Advantage: s.Advantage, Deficit: s.Deficit, Seconds: map[string]float64{}}}
-	v.res.Strip = v.sr
+		res: &recheck.Result{Problem: stripDescribe(s), Bound: s.Advantage.Lower},
+		sr:  &Detail{Alpha: s.Alpha.Value, BasisSize: s.BasisSize, Advantage: s.Advantage, Deficit: s.Deficit, Seconds: map[string]float64{}}}
+	v.res.Detail = v.sr
 	// The schema's strict reading, in case c did not come from Decode.
 	probe := *c
 	if err := certificates.Seal(&probe); err == nil {
@@ -128,8 +147,7 @@ func verifyStrip(c *certificates.Certificate, opt Options, start time.Time) (*Re
 			_, err = certificates.Decode(b)
 		}
 		if err != nil {
-			v.fail(Failure{Where: "structure", Message: err.Error()})
-			v.res.Elapsed = time.Since(start)
+			v.fail(recheck.Failure{Where: "structure", Message: err.Error()})
 			return v.res, nil
 		}
 	}
@@ -139,8 +157,6 @@ func verifyStrip(c *certificates.Certificate, opt Options, start time.Time) (*Re
 	// Claims shown false come first, then those not proved, each in the
 	// order checked.
 	sort.SliceStable(v.res.Failures, func(i, j int) bool { return v.res.Failures[i].Refuted && !v.res.Failures[j].Refuted })
-	v.res.Pass = len(v.res.Failures) == 0
-	v.res.Elapsed = time.Since(start)
 	return v.res, nil
 }
 
@@ -173,11 +189,11 @@ func (v *stripVerifier) run() {
 	au := v.rat(s.AlphaUsed)
 	auF, err := interval.F{}.Decimal(s.AlphaUsed)
 	if err != nil || !auF.IsFinite() {
-		v.fail(Failure{Where: "alpha_used", Message: "alpha_used cannot be enclosed"})
+		v.fail(recheck.Failure{Where: "alpha_used", Message: "alpha_used cannot be enclosed"})
 		return
 	}
 	if auF.Hi() > stripMaxAlpha {
-		v.fail(Failure{Where: "alpha_used", Message: fmt.Sprintf("alpha_used %s is above %g, beyond what this verifier handles", s.AlphaUsed, stripMaxAlpha)})
+		v.fail(recheck.Failure{Where: "alpha_used", Message: fmt.Sprintf("alpha_used %s is above %g, beyond what this verifier handles", s.AlphaUsed, stripMaxAlpha)})
 		return
 	}
 	auB := ratB(au, stripNodePrec)
@@ -202,12 +218,12 @@ func (v *stripVerifier) run() {
 	// The rule.
 	n, qEta, ok := planStripRule(auF.Mid().Lo(), N, coefF)
 	if !ok {
-		v.fail(Failure{Where: "basis_size", Message: fmt.Sprintf("the verifier's rule for basis size %d at alpha %s would need more than %d nodes", N, s.AlphaUsed, stripMaxNodes)})
+		v.fail(recheck.Failure{Where: "basis_size", Message: fmt.Sprintf("the verifier's rule for basis size %d at alpha %s would need more than %d nodes", N, s.AlphaUsed, stripMaxNodes)})
 		return
 	}
 	rule, err := newStripRule(n, v.opt.Workers)
 	if err != nil {
-		v.fail(Failure{Where: "rule", Message: err.Error()})
+		v.fail(recheck.Failure{Where: "rule", Message: err.Error()})
 		return
 	}
 	v.sr.RuleNodes = n + 1
@@ -234,7 +250,7 @@ func (v *stripVerifier) run() {
 	for a := range sqwF {
 		sqwF[a] = stripToF(rule.sqw[a])
 	}
-	stripParallel(M, v.opt.Workers, func(a int) {
+	checknum.For(M, v.opt.Workers, func(a int) {
 		row := make([]float64, M)
 		r2, n2 := interval.PointF(0), interval.PointF(0)
 		var wr [2]interval.F
@@ -279,7 +295,7 @@ func (v *stripVerifier) run() {
 		quadW[w] = witnessQuadF(logC, coefF[w], qEta, rule.wsum)
 	}
 	if !quadG.IsFinite() || !quadW[0].IsFinite() || !quadW[1].IsFinite() {
-		v.fail(Failure{Where: "rule", Message: "the verifier's quadrature remainder bound is not finite"})
+		v.fail(recheck.Failure{Where: "rule", Message: "the verifier's quadrature remainder bound is not finite"})
 		return
 	}
 	v.lap("remainders")
@@ -297,7 +313,7 @@ func (v *stripVerifier) run() {
 		lo, hi := v.rat(wit.Rayleigh.Lower), v.rat(wit.Rayleigh.Upper)
 		rl, rh := ratOfFloat(R[w].Lo()), ratOfFloat(R[w].Hi())
 		if lo.Cmp(rh) > 0 || hi.Cmp(rl) < 0 {
-			v.fail(Failure{Where: name + ".rayleigh", Refuted: true,
+			v.fail(recheck.Failure{Where: name + ".rayleigh", Refuted: true,
 				Message: fmt.Sprintf("the recorded enclosure [%s, %s] of the Rayleigh quotient is false: the verifier's is [%s, %s]",
 					wit.Rayleigh.Lower, wit.Rayleigh.Upper, mine.Lower, mine.Upper)})
 		}
@@ -322,12 +338,12 @@ func (v *stripVerifier) run() {
 	v.sr.DeficitProved.Lower = ratDown17(defLoOwn)
 	advLo, defLo := v.rat(s.Advantage.Lower), v.rat(s.Deficit.Lower)
 	if advLo.Cmp(advLoRec) > 0 {
-		v.fail(Failure{Where: "advantage", Bound: true, By: ratDecimal(sub(advLo, advLoRec)),
+		v.fail(recheck.Failure{Where: "advantage", Bound: true, By: checknum.RatDecimal(sub(advLo, advLoRec)),
 			Message: fmt.Sprintf("the lower end %s is not proved: the advantage witness gives A(alpha) >= max(-(R + e), 0) = %s (R <= %s, e = %s)",
 				s.Advantage.Lower, ratDown17(advLoRec), v.sr.AdvantageRayleigh.Upper, s.Errors.AlphaRounding)})
 	}
 	if defLo.Cmp(defLoRec) > 0 {
-		v.fail(Failure{Where: "deficit", Bound: true, By: ratDecimal(sub(defLo, defLoRec)),
+		v.fail(recheck.Failure{Where: "deficit", Bound: true, By: checknum.RatDecimal(sub(defLo, defLoRec)),
 			Message: fmt.Sprintf("the lower end %s is not proved: the deficit witness gives sup spec >= max(R - e, 0) = %s (R >= %s, e = %s)",
 				s.Deficit.Lower, ratDown17(defLoRec), v.sr.DeficitRayleigh.Lower, s.Errors.AlphaRounding)})
 	}
@@ -341,7 +357,7 @@ func (v *stripVerifier) run() {
 	v.sr.Discarded = sciUp(tailOwn.Hi())
 	tOwn := ratOfFloat(tailOwn.Hi())
 	if tOwn.Cmp(t) > 0 {
-		v.fail(Failure{Where: "errors.discarded_part", By: ratDecimal(sub(tOwn, t)),
+		v.fail(recheck.Failure{Where: "errors.discarded_part", By: checknum.RatDecimal(sub(tOwn, t)),
 			Message: fmt.Sprintf("cannot prove discarded_part %s >= ||k - P k P||: the verifier's bound is %s", s.Errors.DiscardedPart, v.sr.Discarded)})
 	}
 	v.lap("discarded")
@@ -355,22 +371,22 @@ func (v *stripVerifier) run() {
 	lowOK, highOK := false, false
 	var lowP, highP float64
 	if R[0].Hi() < glF.Lo() {
-		v.fail(Failure{Where: "galerkin_lowest", Refuted: true, By: fmtFloat(glF.Lo() - R[0].Hi()),
+		v.fail(recheck.Failure{Where: "galerkin_lowest", Refuted: true, By: fmtFloat(glF.Lo() - R[0].Hi()),
 			Message: fmt.Sprintf("galerkin_lowest %s is false: the advantage witness lies in the Galerkin space and has Rayleigh quotient at most %s", s.GalerkinLowest, v.sr.AdvantageRayleigh.Upper)})
 	} else {
 		lowP, lowOK = gk.proveEdge(glF.Hi(), R[0].Lo(), 1, v.opt.Workers)
 		if !lowOK {
-			v.fail(Failure{Where: "galerkin_lowest",
+			v.fail(recheck.Failure{Where: "galerkin_lowest",
 				Message: fmt.Sprintf("cannot prove lambda_min(G) >= %s (the verifier's float Galerkin matrix is within %s of G; best proved %s)", s.GalerkinLowest, v.sr.GalerkinDistance, fmtFloat(lowP))})
 		}
 	}
 	if R[1].Lo() > ghF.Hi() {
-		v.fail(Failure{Where: "galerkin_highest", Refuted: true, By: fmtFloat(R[1].Lo() - ghF.Hi()),
+		v.fail(recheck.Failure{Where: "galerkin_highest", Refuted: true, By: fmtFloat(R[1].Lo() - ghF.Hi()),
 			Message: fmt.Sprintf("galerkin_highest %s is false: the deficit witness lies in the Galerkin space and has Rayleigh quotient at least %s", s.GalerkinHighest, v.sr.DeficitRayleigh.Lower)})
 	} else {
 		highP, highOK = gk.proveEdge(ghF.Lo(), R[1].Hi(), -1, v.opt.Workers)
 		if !highOK {
-			v.fail(Failure{Where: "galerkin_highest",
+			v.fail(recheck.Failure{Where: "galerkin_highest",
 				Message: fmt.Sprintf("cannot prove lambda_max(G) <= %s (the verifier's float Galerkin matrix is within %s of G; best proved %s)", s.GalerkinHighest, v.sr.GalerkinDistance, fmtFloat(highP))})
 		}
 	}
@@ -393,11 +409,11 @@ func (v *stripVerifier) run() {
 	defHiRec := add(add(ratMaxR(gh, zero), t), e)
 	advHi, defHi := v.rat(s.Advantage.Upper), v.rat(s.Deficit.Upper)
 	if advHi.Cmp(advHiRec) < 0 {
-		v.fail(Failure{Where: "advantage", Bound: true, By: ratDecimal(sub(advHiRec, advHi)),
+		v.fail(recheck.Failure{Where: "advantage", Bound: true, By: checknum.RatDecimal(sub(advHiRec, advHi)),
 			Message: fmt.Sprintf("the upper end %s is not supported: -(min(galerkin_lowest, 0) - discarded_part - alpha_rounding) = %s", s.Advantage.Upper, ratUp17(advHiRec))})
 	}
 	if defHi.Cmp(defHiRec) < 0 {
-		v.fail(Failure{Where: "deficit", Bound: true, By: ratDecimal(sub(defHiRec, defHi)),
+		v.fail(recheck.Failure{Where: "deficit", Bound: true, By: checknum.RatDecimal(sub(defHiRec, defHi)),
 			Message: fmt.Sprintf("the upper end %s is not supported: max(galerkin_highest, 0) + discarded_part + alpha_rounding = %s", s.Deficit.Upper, ratUp17(defHiRec))})
 	}
 
@@ -406,7 +422,7 @@ func (v *stripVerifier) run() {
 		up := add(sub(tOwn, ratMinR(ratOfFloat(lowP), zero)), epsOwn)
 		v.sr.AdvantageProved.Upper = ratUp17(up)
 		if advLo.Cmp(up) > 0 {
-			v.fail(Failure{Where: "advantage", Bound: true, Refuted: true, By: ratDecimal(sub(advLo, up)),
+			v.fail(recheck.Failure{Where: "advantage", Bound: true, Refuted: true, By: checknum.RatDecimal(sub(advLo, up)),
 				Message: fmt.Sprintf("the lower end %s is false: the verifier proves A(alpha) <= %s", s.Advantage.Lower, ratUp17(up))})
 		}
 	}
@@ -414,16 +430,16 @@ func (v *stripVerifier) run() {
 		up := add(add(ratMaxR(ratOfFloat(highP), zero), tOwn), epsOwn)
 		v.sr.DeficitProved.Upper = ratUp17(up)
 		if defLo.Cmp(up) > 0 {
-			v.fail(Failure{Where: "deficit", Bound: true, Refuted: true, By: ratDecimal(sub(defLo, up)),
+			v.fail(recheck.Failure{Where: "deficit", Bound: true, Refuted: true, By: checknum.RatDecimal(sub(defLo, up)),
 				Message: fmt.Sprintf("the lower end %s is false: the verifier proves sup spec K_alpha <= %s", s.Deficit.Lower, ratUp17(up))})
 		}
 	}
 	if advHi.Cmp(advLoOwn) < 0 {
-		v.fail(Failure{Where: "advantage", Bound: true, Refuted: true, By: ratDecimal(sub(advLoOwn, advHi)),
+		v.fail(recheck.Failure{Where: "advantage", Bound: true, Refuted: true, By: checknum.RatDecimal(sub(advLoOwn, advHi)),
 			Message: fmt.Sprintf("the upper end %s is false: the advantage witness proves A(alpha) >= %s", s.Advantage.Upper, ratDown17(advLoOwn))})
 	}
 	if defHi.Cmp(defLoOwn) < 0 {
-		v.fail(Failure{Where: "deficit", Bound: true, Refuted: true, By: ratDecimal(sub(defLoOwn, defHi)),
+		v.fail(recheck.Failure{Where: "deficit", Bound: true, Refuted: true, By: checknum.RatDecimal(sub(defLoOwn, defHi)),
 			Message: fmt.Sprintf("the upper end %s is false: the deficit witness proves sup spec K_alpha >= %s", s.Deficit.Upper, ratDown17(defLoOwn))})
 	}
 	if len(v.res.Failures) == 0 {
@@ -443,7 +459,7 @@ func (v *stripVerifier) rayleigh(At [][]float64, p, dp []float64, wrad []interva
 	M := len(p)
 	t := make([]float64, M)
 	te := make([]float64, M)
-	stripParallel(M, v.opt.Workers, func(a int) {
+	checknum.For(M, v.opt.Workers, func(a int) {
 		t[a], te[a] = exactDot(At[a], p)
 	})
 	num, e0 := exactDot(p, t)

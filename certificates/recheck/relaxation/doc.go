@@ -1,4 +1,5 @@
-// Package recheck is the verifier's own numerics: from the problem, the
+// Package relaxation is the verifier of halfplane-relaxation certificates
+// (it registers itself with wedgebound/certificates/recheck): from the problem, the
 // terms and the cover recorded in a halfplane-relaxation certificate it
 // recomputes everything the certificate's claim rests on, by routes of its
 // own, and reports every claim that does not hold.
@@ -19,7 +20,7 @@
 //     and the quadrant part of B in closed form (tanh, digamma), D in closed
 //     form, and the exp terms' off-diagonal integral I(s) by composite
 //     Clenshaw-Curtis quadrature on a ray turned by +-pi/3, with a remainder
-//     bound of its own (ccRule.bound) from integrand bounds on boxes covering
+//     bound of its own (checknum.Rule.Bound) from integrand bounds on boxes covering
 //     each panel's Bernstein ellipse, and a summed geometric series with a
 //     proved remainder beyond the cut (expTerm).
 //   - On every cell, an enclosure of the extreme eigenvalue over the whole
@@ -32,6 +33,6 @@
 //     each tail's recorded bound must support the claim and must not be
 //     contradicted by the recomputation.
 //
-// Verify runs all of it over a decoded certificate; BuildCertificate is a
+// Checker.Check runs all of it over a decoded certificate; BuildCertificate is a
 // small reference certifier on the same numerics, used by the tests.
-package recheck
+package relaxation

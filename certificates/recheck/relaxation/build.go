@@ -1,4 +1,4 @@
-package recheck
+package relaxation
 
 import (
 	"errors"
@@ -6,6 +6,7 @@ import (
 	"math/big"
 
 	"wedgebound/certificates"
+	"wedgebound/certificates/recheck/checknum"
 	"wedgebound/interval"
 )
 
@@ -107,7 +108,7 @@ func BuildCertificate(o BuildOptions) (*certificates.Certificate, error) {
 				if err != nil {
 					return nil, err
 				}
-				cells = append(cells, certificates.Cell{Lo: ratText(p[0]), Hi: ratText(p[1]), EigLower: el, EigUpper: eu})
+				cells = append(cells, certificates.Cell{Lo: checknum.RatText(p[0]), Hi: checknum.RatText(p[1]), EigLower: el, EigUpper: eu})
 			}
 		}
 	}
@@ -132,7 +133,7 @@ func BuildCertificate(o BuildOptions) (*certificates.Certificate, error) {
 		if edge == Upper {
 			b = h
 		}
-		tails[i] = certificates.Tail{From: ratText(from), Bound: b, Lemma: "recheck tail lemma (quadrant |J| <= pi/(4|a|), exp terms C(k)/|a|, monotone corner)"}
+		tails[i] = certificates.Tail{From: checknum.RatText(from), Bound: b, Lemma: "recheck tail lemma (quadrant |J| <= pi/(4|a|), exp terms C(k)/|a|, monotone corner)"}
 	}
 	normal := certificates.NormalForm{A: nf.A.RatString(), B: nf.B.RatString(), D: nf.D.RatString(), Threshold: NoThreshold}
 	for i := range 4 {
@@ -163,18 +164,6 @@ func BuildCertificate(o BuildOptions) (*certificates.Certificate, error) {
 		return nil, err
 	}
 	return c, nil
-}
-
-// ratText writes r as an exact decimal when it terminates, else as p/q
-// (which certificates.Dec rejects, so callers use terminating values).
-func ratText(r *big.Rat) string {
-	for d := 0; d <= 60; d++ {
-		s := r.FloatString(d)
-		if t, ok := new(big.Rat).SetString(s); ok && t.Cmp(r) == 0 {
-			return s
-		}
-	}
-	return r.RatString()
 }
 
 // budget returns the largest quadrature and truncation terms added to any

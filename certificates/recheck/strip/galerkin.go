@@ -1,8 +1,9 @@
-package recheck
+package strip
 
 import (
 	"math"
 
+	"wedgebound/certificates/recheck/checknum"
 	"wedgebound/interval"
 )
 
@@ -52,7 +53,7 @@ func stripGalerkin(At [][]float64, rows *stripRows, quad, radA, normA interval.F
 	M := len(At)
 	TT := make([][]float64, N)
 	eT := make([]interval.F, N) // ||error of T_k||
-	stripParallel(N, workers, func(k int) {
+	checknum.For(N, workers, func(k int) {
 		row := make([]float64, M)
 		s := interval.PointF(0)
 		for a := 0; a < M; a++ {
@@ -76,7 +77,7 @@ func stripGalerkin(At [][]float64, rows *stripRows, quad, radA, normA interval.F
 		Gh[j] = make([]float64, N)
 	}
 	beta2 := make([]interval.F, N)
-	stripParallel(N, workers, func(j int) {
+	checknum.For(N, workers, func(j int) {
 		s := interval.PointF(0)
 		for k := j; k < N; k++ {
 			v, e := exactDot(UT[j], TT[k])
@@ -152,7 +153,7 @@ func psdResidual(Gh [][]float64, sigma, sign float64, workers int) (interval.F, 
 		return interval.F{}, false
 	}
 	rows := make([]interval.F, N)
-	stripParallel(N, workers, func(i int) {
+	checknum.For(N, workers, func(i int) {
 		s := interval.PointF(0)
 		for j := 0; j <= i; j++ {
 			var q stripAcc

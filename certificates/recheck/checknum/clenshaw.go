@@ -1,4 +1,4 @@
-package recheck
+package checknum
 
 import (
 	"fmt"
@@ -7,7 +7,7 @@ import (
 	"wedgebound/interval"
 )
 
-// ccRule is the (n+1)-point Clenshaw-Curtis rule on [-1, 1] for an even n:
+// Rule is the (n+1)-point Clenshaw-Curtis rule on [-1, 1] for an even n:
 // nodes x_j = cos(j pi/n), j = 0..n, and the weights that integrate the
 // polynomial interpolant of degree n through them exactly.
 //
@@ -21,11 +21,13 @@ import (
 //
 // with g_j = 1/2 for j = 0, n and 1 otherwise. All of it is evaluated in
 // interval arithmetic, so the nodes and weights are enclosures.
-type ccRule[T interval.Real[T]] struct {
-	n    int
-	x, w []T
-	// wabs is an upper bound on sum_j |w_j|.
-	wabs T
+type Rule[T interval.Real[T]] struct {
+	// N is the (even) number of intervals; X and W hold the N+1 nodes and
+	// weights.
+	N    int
+	X, W []T
+	// WAbs is an upper bound on sum_j |w_j|.
+	WAbs T
 }
 
 // bound returns an upper bound on |int_{-1}^{1} f - sum_j w_j f(x_j)| for
@@ -52,16 +54,16 @@ type ccRule[T interval.Real[T]] struct {
 // geometric series equal to the bound. (Trefethen's bound has the same
 // form with the constant 64/15 in place of 2(W + ...) = 4 + ..., from
 // memory.)
-func (r *ccRule[T]) bound(m, rho T) T {
-	n := r.n
+func (r *Rule[T]) Bound(m, rho T) T {
+	n := r.N
 	eps := m.Frac(2, int64((n+2)*(n+2)-1))
-	rn := powInt(rho, n)
+	rn := PowInt(rho, n)
 	den := rn.Mul(rho.Sqr().Sub(m.Int(1)))
-	return m.Scale(1).Mul(r.wabs.Add(eps)).Quo(den)
+	return m.Scale(1).Mul(r.WAbs.Add(eps)).Quo(den)
 }
 
-// powInt encloses x^n for n >= 0 by repeated squaring.
-func powInt[T interval.Real[T]](x T, n int) T {
+// PowInt encloses x^n for n >= 0 by repeated squaring.
+func PowInt[T interval.Real[T]](x T, n int) T {
 	res := x.Int(1)
 	b := x
 	for n > 0 {
@@ -87,31 +89,31 @@ var (
 	ccCache = map[ccKey]any{}
 )
 
-// clenshawCurtis returns the rule with n+1 nodes at the precision of like
+// ClenshawCurtis returns the rule with n+1 nodes at the precision of like
 // (cached); n must be even and at least 2.
-func clenshawCurtis[T interval.Real[T]](like T, n int) (*ccRule[T], error) {
+func ClenshawCurtis[T interval.Real[T]](like T, n int) (*Rule[T], error) {
 	if n < 2 || n%2 != 0 {
-		return nil, fmt.Errorf("recheck: Clenshaw-Curtis needs an even n >= 2, not %d", n)
+		return nil, fmt.Errorf("checknum: Clenshaw-Curtis needs an even n >= 2, not %d", n)
 	}
 	key := ccKey{fmt.Sprintf("%T", like), like.Prec(), n}
 	ccMu.Lock()
 	defer ccMu.Unlock()
 	if r, ok := ccCache[key]; ok {
-		if rr, ok := r.(*ccRule[T]); ok {
+		if rr, ok := r.(*Rule[T]); ok {
 			return rr, nil
 		}
 	}
-	r := buildCC(like, n)
-	for j := range r.x {
-		if !r.x[j].IsFinite() || !r.w[j].IsFinite() {
-			return nil, fmt.Errorf("recheck: Clenshaw-Curtis rule n=%d not enclosed", n)
+	r := buildRule(like, n)
+	for j := range r.X {
+		if !r.X[j].IsFinite() || !r.W[j].IsFinite() {
+			return nil, fmt.Errorf("checknum: Clenshaw-Curtis rule n=%d not enclosed", n)
 		}
 	}
 	ccCache[key] = r
 	return r, nil
 }
 
-func buildCC[T interval.Real[T]](like T, n int) *ccRule[T] {
+func buildRule[T interval.Real[T]](like T, n int) *Rule[T] {
 	pi := like.Pi()
 	// cosPi(p) encloses cos(p pi / n) for an integer p reduced mod 2n.
 	cosPi := func(p int) T {
@@ -127,15 +129,15 @@ func buildCC[T interval.Real[T]](like T, n int) *ccRule[T] {
 		}
 		return interval.Cos(pi.Mul(like.Frac(int64(p), int64(n))))
 	}
-	r := &ccRule[T]{n: n, x: make([]T, n+1), w: make([]T, n+1)}
+	r := &Rule[T]{N: n, X: make([]T, n+1), W: make([]T, n+1)}
 	for j := 0; j <= n; j++ {
-		r.x[j] = cosPi(j)
+		r.X[j] = cosPi(j)
 	}
 	// Exact symmetry: x_{n-j} = -x_j.
 	for j := 0; j <= n/2; j++ {
-		r.x[n-j] = r.x[j].Neg()
+		r.X[n-j] = r.X[j].Neg()
 	}
-	r.x[n/2] = like.Int(0)
+	r.X[n/2] = like.Int(0)
 	half := n / 2
 	wabs := like.Int(0)
 	for j := 0; j <= n; j++ {
@@ -151,15 +153,15 @@ func buildCC[T interval.Real[T]](like T, n int) *ccRule[T] {
 		if j == 0 || j == n {
 			w = w.Scale(-1)
 		}
-		r.w[j] = w
+		r.W[j] = w
 	}
 	for j := 0; j <= n/2; j++ { // symmetric weights: use the hull of both
-		h := r.w[j].Hull(r.w[n-j])
-		r.w[j], r.w[n-j] = h, h
+		h := r.W[j].Hull(r.W[n-j])
+		r.W[j], r.W[n-j] = h, h
 	}
 	for j := 0; j <= n; j++ {
-		wabs = wabs.Add(r.w[j].Abs())
+		wabs = wabs.Add(r.W[j].Abs())
 	}
-	r.wabs = interval.Upper(wabs)
+	r.WAbs = interval.Upper(wabs)
 	return r
 }

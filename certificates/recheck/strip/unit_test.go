@@ -1,4 +1,4 @@
-package recheck
+package strip
 
 import (
 	"math"

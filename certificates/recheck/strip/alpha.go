@@ -1,4 +1,4 @@
-package recheck
+package strip
 
 import (
 	"fmt"
@@ -7,6 +7,8 @@ import (
 	"strings"
 
 	"wedgebound/certificates"
+	"wedgebound/certificates/recheck"
+	"wedgebound/certificates/recheck/checknum"
 	"wedgebound/interval"
 )
 
@@ -82,18 +84,18 @@ func (v *stripVerifier) checkAlpha() (interval.B, bool) {
 	s := v.s
 	r, twoPi, err := certificates.ParseStripAlpha(s.Alpha.Value)
 	if err != nil {
-		v.fail(Failure{Where: "alpha", Message: err.Error()})
+		v.fail(recheck.Failure{Where: "alpha", Message: err.Error()})
 		return interval.B{}, false
 	}
 	if u := s.Alpha.Units; u != nil {
 		ru, err := stripAlphaFromUnits(u)
 		switch {
 		case err != nil:
-			v.fail(Failure{Where: "alpha.units", Message: err.Error()})
+			v.fail(recheck.Failure{Where: "alpha.units", Message: err.Error()})
 			return interval.B{}, false
 		case !twoPi || ru.Cmp(r) != 0:
-			v.fail(Failure{Where: "alpha.units", Refuted: true,
-				Message: fmt.Sprintf("the units give alpha = 2*pi*%s, not %s", ratText(ru), s.Alpha.Value)})
+			v.fail(recheck.Failure{Where: "alpha.units", Refuted: true,
+				Message: fmt.Sprintf("the units give alpha = 2*pi*%s, not %s", checknum.RatText(ru), s.Alpha.Value)})
 			return interval.B{}, false
 		}
 	}
@@ -109,11 +111,11 @@ func (v *stripVerifier) checkAlpha() (interval.B, bool) {
 	ahR, _ := ah.Rat(nil)
 	switch {
 	case lo.Cmp(ahR) > 0 || hi.Cmp(alR) < 0:
-		v.fail(Failure{Where: "alpha", Refuted: true,
+		v.fail(recheck.Failure{Where: "alpha", Refuted: true,
 			Message: fmt.Sprintf("the recorded enclosure [%s, %s] does not contain alpha = %s (which lies in [%s, %s])",
 				s.Alpha.Lower, s.Alpha.Upper, s.Alpha.Value, interval.DecimalDown(al, 20), interval.DecimalUp(ah, 20))})
 	case lo.Cmp(alR) > 0 || hi.Cmp(ahR) < 0:
-		v.fail(Failure{Where: "alpha",
+		v.fail(recheck.Failure{Where: "alpha",
 			Message: fmt.Sprintf("cannot prove that [%s, %s] contains alpha = %s", s.Alpha.Lower, s.Alpha.Upper, s.Alpha.Value)})
 	}
 
@@ -127,11 +129,11 @@ func (v *stripVerifier) checkAlpha() (interval.B, bool) {
 	qhR, _ := qh.Rat(nil)
 	switch {
 	case e.Cmp(qlR) < 0:
-		v.fail(Failure{Where: "errors.alpha_rounding", Refuted: true,
+		v.fail(recheck.Failure{Where: "errors.alpha_rounding", Refuted: true,
 			Message: fmt.Sprintf("alpha_rounding %s is below |alpha - alpha_used|/(2 pi), which is at least %s", s.Errors.AlphaRounding, interval.DecimalDown(ql, 8)),
-			By:      ratDecimal(new(big.Rat).Sub(qlR, e))})
+			By:      checknum.RatDecimal(new(big.Rat).Sub(qlR, e))})
 	case e.Cmp(qhR) < 0:
-		v.fail(Failure{Where: "errors.alpha_rounding",
+		v.fail(recheck.Failure{Where: "errors.alpha_rounding",
 			Message: fmt.Sprintf("cannot prove alpha_rounding %s >= |alpha - alpha_used|/(2 pi) (at most %s)", s.Errors.AlphaRounding, interval.DecimalUp(qh, 8))})
 	}
 	return q, true

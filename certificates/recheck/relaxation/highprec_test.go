@@ -1,4 +1,4 @@
-package recheck
+package relaxation
 
 import (
 	"math/big"
@@ -6,6 +6,7 @@ import (
 
 	"wedgebound/certificates"
 	"wedgebound/interval"
+	"wedgebound/certificates/recheck"
 )
 
 // The big-float model agrees with the float64 one and is much tighter.
@@ -54,7 +55,7 @@ func TestHighPrecisionRetry(t *testing.T) {
 		PrecisionBits: 128,
 		Cover:         []certificates.Cell{{Lo: a.FloatString(30), Hi: b.FloatString(30), EigLower: "-0.156", EigUpper: "-0.155"}},
 	}}
-	v := &verifier{rel: c.Relaxation, opt: Options{MaxDepth: 1}, res: &Result{}, edge: Lower, thr: rat(t, "-0.1559398431912428")}
+	v := &verifier{rel: c.Relaxation, opt: Options{MaxDepth: 1}, res: &recheck.Result{}, det: &Detail{}, edge: Lower, thr: rat(t, "-0.1559398431912428")}
 	m, _ := NewModel(interval.F{}, Lower, nil)
 	v.mF = m
 	r := v.cell(a, b)

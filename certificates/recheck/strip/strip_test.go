@@ -1,4 +1,4 @@
-package recheck_test
+package strip_test
 
 // End-to-end tests of the strip verifier on certificates written by the
 // certifier (package certify/strip; the tests may use it, the verifier
@@ -15,6 +15,7 @@ import (
 
 	"wedgebound/certificates"
 	"wedgebound/certificates/recheck"
+	vstrip "wedgebound/certificates/recheck/strip"
 	"wedgebound/certify/strip"
 )
 
@@ -72,7 +73,7 @@ func verifyStrip(t testing.TB, c *certificates.Certificate) *recheck.Result {
 	if err != nil {
 		t.Fatal(err)
 	}
-	if r.Strip == nil {
+	if detailOf(r) == nil {
 		t.Fatal("no strip result")
 	}
 	return r
@@ -118,7 +119,7 @@ func TestStripCertificatesPass(t *testing.T) {
 			t.Errorf("alpha %s fails:\n%s", a, failures(r))
 			continue
 		}
-		s := r.Strip
+		s := detailOf(r)
 		if v, ok := adv[a]; ok && !meets(t, s.AdvantageProved, v, "0.00000005") {
 			t.Errorf("alpha %s: proved advantage [%s, %s] does not meet %s", a, s.AdvantageProved.Lower, s.AdvantageProved.Upper, v)
 		}
@@ -137,7 +138,7 @@ func TestStripCertificatesPass(t *testing.T) {
 // The shipped certificate (wedgebound strip --alpha 50 --out
 // testdata/strip-alpha50.json) passes.
 func TestShippedStripCertificate(t *testing.T) {
-	c, err := certificates.ReadFile(filepath.Join("..", "..", "testdata", "strip-alpha50.json"))
+	c, err := certificates.ReadFile(filepath.Join("..", "..", "..", "testdata", "strip-alpha50.json"))
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -288,8 +289,8 @@ func TestStripSlowAlphas(t *testing.T) {
 		if !r.Pass {
 			t.Errorf("alpha %s fails:\n%s", a, failures(r))
 		}
-		if ratOf(t, r.Strip.AdvantageProved.Upper).Cmp(ratOf(t, "0.0384517")) >= 0 {
-			t.Errorf("alpha %s: proved advantage upper end %s is not below the backflow estimate", a, r.Strip.AdvantageProved.Upper)
+		if ratOf(t, detailOf(r).AdvantageProved.Upper).Cmp(ratOf(t, "0.0384517")) >= 0 {
+			t.Errorf("alpha %s: proved advantage upper end %s is not below the backflow estimate", a, detailOf(r).AdvantageProved.Upper)
 		}
 	}
 }
@@ -308,3 +309,9 @@ func benchVerifyStrip(b *testing.B, alpha string) {
 func BenchmarkVerifyStripAlpha50(b *testing.B)   { benchVerifyStrip(b, "50") }
 func BenchmarkVerifyStripAlpha200(b *testing.B)  { benchVerifyStrip(b, "200") }
 func BenchmarkVerifyStripAlpha1000(b *testing.B) { benchVerifyStrip(b, "1000") }
+
+// detailOf returns the strip verifier's detail of a result.
+func detailOf(r *recheck.Result) *vstrip.Detail {
+	d, _ := r.Detail.(*vstrip.Detail)
+	return d
+}

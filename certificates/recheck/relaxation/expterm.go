@@ -1,4 +1,4 @@
-package recheck
+package relaxation
 
 import (
 	"errors"
@@ -7,6 +7,7 @@ import (
 	"math/big"
 	"sync"
 
+	"wedgebound/certificates/recheck/checknum"
 	"wedgebound/interval"
 )
 
@@ -46,7 +47,7 @@ import (
 // |e^{-at}| = e^{-c y} with c = Re(a e^{i psi}) >= 1/4 + |s| sqrt(3)/2.
 //
 // The ray is cut at Y. The part y in [0, Y] is integrated by composite
-// Clenshaw-Curtis rules with the remainder bound of ccRule.bound, the
+// Clenshaw-Curtis rules with the remainder bound of checknum.Rule.Bound, the
 // integrand being bounded on boxes covering each panel's Bernstein
 // ellipse, for all s of the regime at once. Beyond Y, |q e^{-t}| =
 // e^{-y cos psi} < 1, so g = sum_n q^n e^{-nt} converges uniformly and
@@ -332,28 +333,28 @@ func (e *expTerm[T]) buildRegime(idx int) (*expRegime[T], error) {
 	// Nodes in increasing y; a shared panel end is one node.
 	var lastY float64 = -1
 	for pi, p := range done {
-		rule, err := clenshawCurtis(like, sizes[pi])
+		rule, err := checknum.ClenshawCurtis(like, sizes[pi])
 		if err != nil {
 			return nil, err
 		}
 		y0, y1 := like.Float(p.a), like.Float(p.b)
 		m := y0.Add(y1).Scale(-1)
 		l := y1.Sub(y0).Scale(-1)
-		for j := rule.n; j >= 0; j-- {
+		for j := rule.N; j >= 0; j-- {
 			var y T
 			var yf float64
 			switch j {
-			case rule.n:
+			case rule.N:
 				y, yf = y0, p.a
 			case 0:
 				y, yf = y1, p.b
 			default:
-				y, yf = m.Add(l.Mul(rule.x[j])), math.NaN()
+				y, yf = m.Add(l.Mul(rule.X[j])), math.NaN()
 			}
 			t := rot.MulReal(y)
 			// s-free part of the integrand times dt = e^{i psi} dy and the weight.
 			f := t.Scale(-1).Neg().Exp().Quo(interval.RealC(one).Sub(e.q.Mul(t.Neg().Exp())))
-			hj := f.Mul(rot).MulReal(l.Mul(rule.w[j]))
+			hj := f.Mul(rot).MulReal(l.Mul(rule.W[j]))
 			if yf == lastY && len(reg.h) > 0 {
 				reg.h[len(reg.h)-1] = reg.h[len(reg.h)-1].Add(hj)
 				continue
@@ -404,14 +405,14 @@ func (e *expTerm[T]) panelRule(like T, rot interval.C[T], sR T, a, b float64, ta
 			if cand > maxN || found && cand >= bestN {
 				break
 			}
-			rule, err := clenshawCurtis(like, cand)
+			rule, err := checknum.ClenshawCurtis(like, cand)
 			if err != nil {
 				return 0, target, target, false
 			}
-			b0 := rule.bound(m0, rho).Mul(l)
+			b0 := rule.Bound(m0, rho).Mul(l)
 			if b0.IsFinite() && b0.Hi() <= target.Lo() {
 				n = cand
-				best0, best1 = interval.Upper(b0), interval.Upper(rule.bound(m1, rho).Mul(l))
+				best0, best1 = interval.Upper(b0), interval.Upper(rule.Bound(m1, rho).Mul(l))
 				break
 			}
 		}

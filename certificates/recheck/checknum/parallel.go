@@ -1,0 +1,41 @@
+package checknum
+
+import (
+	"runtime"
+	"sync"
+	"sync/atomic"
+)
+
+// For runs body(i) for every i in [0, n) on up to workers goroutines
+// (workers <= 0: GOMAXPROCS), each taking the next undone index; it returns
+// when all calls have returned.
+func For(n, workers int, body func(i int)) {
+	if workers <= 0 {
+		workers = runtime.GOMAXPROCS(0)
+	}
+	if workers > n {
+		workers = n
+	}
+	if workers <= 1 {
+		for i := 0; i < n; i++ {
+			body(i)
+		}
+		return
+	}
+	var next atomic.Int64
+	var wg sync.WaitGroup
+	for w := 0; w < workers; w++ {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			for {
+				i := int(next.Add(1)) - 1
+				if i >= n {
+					return
+				}
+				body(i)
+			}
+		}()
+	}
+	wg.Wait()
+}

@@ -1,0 +1,19 @@
+package relaxation
+
+import (
+	"wedgebound/certificates"
+	"wedgebound/certificates/recheck"
+)
+
+// Options and Verify let the tests call the core dispatch briefly.
+type Options = recheck.Options
+
+func Verify(c *certificates.Certificate, opt Options) (*recheck.Result, error) {
+	return recheck.Verify(c, opt)
+}
+
+// detailOf returns the relaxation detail of a result.
+func detailOf(r *recheck.Result) *Detail {
+	d, _ := r.Detail.(*Detail)
+	return d
+}
