@@ -4,14 +4,12 @@ import (
 	"encoding/json"
 	"fmt"
 	"io"
-	"math"
-	"math/big"
 	"os"
 	"strings"
 
 	"github.com/spf13/pflag"
 
-	"wedgebound/certify"
+	"wedgebound/certify/spectrum"
 	"wedgebound/interval"
 	"wedgebound/regions"
 )
@@ -76,24 +74,21 @@ func runSpectrum(args []string, stdout, stderr io.Writer) int {
 	if !*quadrant && !fs.Changed("digits") {
 		*digits = 4
 	}
-	if *digits < 1 || *digits > 60 {
-		fmt.Fprintf(stderr, "wedgebound spectrum: --digits %d is outside 1..60\n", *digits)
+	if *digits < 1 || *digits > spectrum.MaxQuadrantDigits {
+		fmt.Fprintf(stderr, "wedgebound spectrum: --digits %d is outside 1..%d\n", *digits, spectrum.MaxQuadrantDigits)
 		return 2
 	}
 	var res [2]interval.B
 	if *quadrant {
-		prec := uint(float64(*digits)*math.Log2(10)) + 40
 		var err error
-		res, err = spectrum(interval.NewB(0, prec), regions.Relaxation[interval.B]{}, *digits, true, nil)
+		res, err = spectrum.Quadrant(*digits)
 		if err != nil {
 			fmt.Fprintf(stderr, "wedgebound spectrum: %v\n", err)
 			return 1
 		}
 	} else {
-		// With terms the cells use direct float64-interval enclosures, which
-		// settle a few digits within the cell budget.
-		if *digits > 5 {
-			fmt.Fprintf(stderr, "wedgebound spectrum: with --terms at most 5 digits are supported, not %d\n", *digits)
+		if *digits > spectrum.MaxTermDigits {
+			fmt.Fprintf(stderr, "wedgebound spectrum: with --terms at most %d digits are supported, not %d\n", spectrum.MaxTermDigits, *digits)
 			return 2
 		}
 		data, source := termsJSON, "--term"
@@ -111,7 +106,7 @@ func runSpectrum(args []string, stdout, stderr io.Writer) int {
 			return 2
 		}
 		bar := newProgress(stderr, *quiet)
-		r, err := spectrum(interval.F{}, rel, *digits, false, bar.update)
+		r, err := spectrum.Terms(rel, *digits, bar.update)
 		bar.done()
 		if err != nil {
 			fmt.Fprintf(stderr, "wedgebound spectrum: %v\n", err)
@@ -138,76 +133,4 @@ func runSpectrum(args []string, stdout, stderr io.Writer) int {
 	}
 	fmt.Fprintf(stdout, "inf spec in [%s, %s]\nsup spec in [%s, %s]\n", inf.Lower, inf.Upper, sup.Lower, sup.Upper)
 	return 0
-}
-
-// spectrum encloses inf spec and sup spec of Op(g) for g = chi_Q + terms.
-// The bare quadrant (quadrant true) uses the mean-value form, which reaches
-// any precision, with float64 cells first; with terms the cells use direct
-// enclosures.
-func spectrum[T interval.Real[T]](like T, rel regions.Relaxation[T], digits int, quadrant bool, progress func(stage string, done, total int)) ([2]T, error) {
-	// Push the tails out until the lemmas' |B| bound is small and the tail
-	// eigenvalue enclosures are narrow on both sides (a profile reaching
-	// xp = c keeps the bound on D large up to s ~ 2c).
-	Sv := int64(8)
-	small := func(S int64) bool {
-		for _, side := range []int{-1, 1} {
-			m := rel.Tail(like.Int(S), side)
-			if m.B.Re.Hi() > 0.002 && side < 0 {
-				return false
-			}
-			for _, e := range []regions.Edge{regions.Lower, regions.Upper} {
-				if v := m.Eig(e); !v.IsFinite() || v.Hi()-v.Lo() > 0.004 {
-					return false
-				}
-			}
-		}
-		return true
-	}
-	for Sv < 1<<14 && !small(Sv) {
-		Sv *= 2
-	}
-	S := like.Int(Sv)
-	var out [2]T
-	extra := 3
-	if !quadrant {
-		extra = 1
-	}
-	eps, _ := like.Decimal(fmt.Sprintf("1e-%d", digits+extra))
-	minW := new(big.Rat).SetFrac(big.NewInt(1), new(big.Int).Exp(big.NewInt(10), big.NewInt(int64(digits/2+8)), nil))
-	for i, e := range []regions.Edge{regions.Lower, regions.Upper} {
-		point := func(s T) T { return rel.Enclose(s).Eig(e) }
-		f := func(s T) T { return rel.Eig(s, e) }
-		var fast certify.CellFunc[T]
-		if quadrant {
-			f = func(s T) T { return regions.QuadrantEig(s, e) }
-			fast = func(s T) T {
-				v := regions.QuadrantEig(interval.F{}.Between(s.Endpoints()), e)
-				return s.Between(v.Endpoints())
-			}
-		}
-		outside := rel.Tail(S, 1).Eig(e).Hull(rel.Tail(S, -1).Eig(e))
-		var scan []*big.Rat
-		if !quadrant {
-			// Relaxation terms move the extremum and add oscillation: scan
-			// [-24, 24] in steps of 1/8 as well.
-			for k := int64(-192); k <= 192; k++ {
-				scan = append(scan, big.NewRat(k, 8))
-			}
-		}
-		x := certify.Extreme[T]{
-			F: f, Point: point, Fast: fast, Lo: big.NewRat(-Sv, 1), Hi: big.NewRat(Sv, 1), Outside: outside, Scan: scan,
-			Cells: 64, Eps: eps, Max: e == regions.Upper,
-			Options: certify.CoverOptions{MinWidth: minW, MaxCells: 200000},
-		}
-		if progress != nil {
-			stage := []string{"inf spec", "sup spec"}[i]
-			x.Options.Progress = func(done, total int) { progress(stage, done, total) }
-		}
-		r, err := x.Solve(like)
-		if err != nil {
-			return out, err
-		}
-		out[i] = r.Value
-	}
-	return out, nil
 }
