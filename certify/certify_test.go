@@ -20,7 +20,7 @@ import (
 // backflowEstimate are declared in search_test.go):
 //   - werner5: the bare-quadrant bound 0.15594 (R. F. Werner, J. Phys. A 21
 //     (1988) 4565, from memory); the 20-digit value 0.15593984319124276369 is
-//     from MATH.md section 4 (mpmath, not a published source).
+//     from the regions package doc (mpmath, not a published source).
 //   - fewsterEstimate: 0.0384506 (C. J. Fewster and H. J. Kirk-Karakaya,
 //     arXiv:2505.13184, 2025). A certified upper bound on the backflow
 //     constant below either estimate would be a bug.
@@ -204,7 +204,7 @@ func TestRunQuadrant(t *testing.T) {
 }
 
 // TestRunQuadrantUpper certifies the upper edge of the bare quadrant: the
-// proved bound on sup spec must be above 1.00767997007 (MATH.md section 4)
+// proved bound on sup spec must be above 1.00767997007 (regions package doc)
 // and close to Werner's 1.00768.
 func TestRunQuadrantUpper(t *testing.T) {
 	p := regions.Presets["backflow"]
@@ -321,7 +321,7 @@ func TestRunReposed(t *testing.T) {
 
 // TestRunZeroWeights: a relaxation with all weights zero is the bare
 // quadrant, so it must reproduce the quadrant bound: both claims are proved
-// upper bounds of the same number 0.15593984319... (MATH.md section 4), and
+// upper bounds of the same number 0.15593984319... (regions package doc), and
 // each lies within the cover's aim (candidate + margin) above it, so they
 // agree to within the margin. (They need not be byte-identical: the bare
 // quadrant's candidate comes from a 0.01-step scan, 0.1559326, the

@@ -535,7 +535,7 @@ func TestGammaHighPrecision(t *testing.T) {
 func slowTests() bool { return os.Getenv("WEDGEBOUND_SLOW") == "1" }
 
 func TestJRealPart(t *testing.T) {
-	// J(s) = int_0^1 r^(a-1)/(1+r) dr with a = 1/2 + is (MATH.md section 3),
+	// J(s) = int_0^1 r^(a-1)/(1+r) dr with a = 1/2 + is (regions package doc),
 	// and J(s) + J(-s) = int_0^inf r^(a-1)/(1+r) dr = Gamma(a) Gamma(1-a) =
 	// pi / sin(pi a) = pi / cosh(pi s) (DLMF 5.12.3 with 5.5.3). Since
 	// J(-s) = conj J(s), Re J(s) = pi / (2 cosh(pi s)). Checked through the

@@ -13,14 +13,14 @@ import (
 // two-channel test states psi the quadratic form <psi, Op(g) psi> is
 // computed once directly from the position-space kernel of Op(g) and once as
 // int ds phi(s)^* M(s) phi(s) with phi the Mellin transforms of the two
-// channels (MATH.md section 3) and M(s) the enclosures of this package
+// channels (package doc, "Mellin diagonalisation") and M(s) the enclosures of this package
 // (midpoints). Both are float64 computations, so this is a consistency
 // test of the conventions (channel order, the sign of s in the Mellin
 // transform, B against conj B, the parity rule for quadrant III), not a
 // proof; the two sides agree to about 1e-12, and swapping B for conj B
 // changes the result in the third digit, so the test discriminates.
 //
-// The kernels are derived from the Weyl kernel of MATH.md section 1,
+// The kernels are derived from the Weyl kernel of the package doc,
 // K(x, y) = (1/2pi) int g((x+y)/2, p) e^{ip(x-y)} dp:
 //   - quadrant g = [x>0][p>0]: int_0^inf e^{ipu} dp = pi delta(u) + i PV 1/u
 //     gives K = (1/2)[x>0] delta(x-y) + (i/2pi) PV [x+y>0]/(x-y);
@@ -166,7 +166,7 @@ var (
 // |Gamma(3/2 + is)|^2 = pi (1/4 + s^2)/cosh(pi s) (from
 // Gamma(1/2 + z) Gamma(1/2 - z) = pi / cos(pi z), Abramowitz and Stegun
 // 6.1.30, from memory), and Plancherel: int |phi_+|^2 + |phi_-|^2 ds =
-// ||psi||^2 (the Mellin transform is unitary, MATH.md section 3).
+// ||psi||^2 (the Mellin transform is unitary, package doc).
 func TestMellinTransformOfState(t *testing.T) {
 	for _, s := range []float64{-3, 0, 0.7, 5} {
 		g := gammaF(complex(1.5, -s))

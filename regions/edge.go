@@ -9,7 +9,8 @@ import (
 )
 
 // An edge term is the off-diagonal contribution of one knot c >= 0 of a
-// piecewise-linear profile G(u) on quadrant I (MATH.md section 3). With
+// piecewise-linear profile G(u) on quadrant I (package doc, "Mellin
+// diagonalisation" and "Bands and hats"). With
 // r = (tau-1)/(tau+1) = e^{-t} the entry
 // M_{+-}(s) = (1/pi) int_1^inf G^(2 tau) (tau-1)^{-1/2+is} (tau+1)^{-1/2-is} dtau
 // becomes an integral over t in (0, inf) with tau = coth(t/2), and

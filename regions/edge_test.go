@@ -8,7 +8,7 @@ import (
 	"wedgebound/interval"
 )
 
-// tauEdge computes the edge terms from the tau form of MATH.md section 3,
+// tauEdge computes the edge terms from the tau form of the package doc,
 //
 //	E(c, s) = (1/pi) int_1^inf e^{2ic tau} (2i tau)^{-1} (tau-1)^{-1/2+is} (tau+1)^{-1/2-is} dtau,
 //

@@ -11,7 +11,7 @@ import (
 
 // expTerm is the exponential profile h(xp) = e^{-k xp} on quadrant III,
 // k > 0. With G(u) = e^{-ku}, G^(w) = 1/(k - i w), and the quadrant-I
-// entries of MATH.md section 3 evaluate to
+// entries of the package doc ("Mellin diagonalisation") evaluate to
 //
 //	M_{++}(s) = e^{2 theta s} / (|k + 2i| cosh(pi s)),  theta = atan(2/k),
 //	M_{+-}(s) = I(s) / (pi (k - 2i)),  I(s) = int_0^1 r^{a-1}/(1 - q r) dr,

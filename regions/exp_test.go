@@ -32,7 +32,7 @@ func expF(t testing.TB, k string) Term[interval.F] {
 }
 
 // refExpD is an independent float quadrature of the quadrant-I diagonal
-// entry for G(u) = e^{-ku}, G^(w) = 1/(k - iw) (MATH.md section 3):
+// entry for G(u) = e^{-ku}, G^(w) = 1/(k - iw) (package doc):
 // M_{++}(s) = (1/pi) int_R G^(2 tanh v) e^{-2isv} sech v dv.
 func refExpD(k, s float64) float64 {
 	var edges []float64
@@ -46,7 +46,7 @@ func refExpD(k, s float64) float64 {
 }
 
 // refExpMpm is an independent float quadrature of the quadrant-I
-// off-diagonal entry (MATH.md section 3)
+// off-diagonal entry (package doc)
 // M_{+-}(s) = (1/pi) int_1^inf G^(2 tau) (tau-1)^{-1/2+is} (tau+1)^{-1/2-is} dtau,
 // substituting tau = 1 + e^w: the integrand becomes
 // e^{w/2} e^{isw} (2 + e^w)^{-1/2-is} / (k - 2i(1 + e^w)), which decays like
@@ -64,7 +64,7 @@ func refExpMpm(k, s float64) complex128 {
 
 // TestExpAgainstQuadrature checks the exponential term's D and B
 // enclosures against the two independent quadratures: by the parity rule
-// (MATH.md section 3) the quadrant-III profile has D = M^I_{++} and
+// (package doc) the quadrant-III profile has D = M^I_{++} and
 // B = conj(M^I_{+-}).
 func TestExpAgainstQuadrature(t *testing.T) {
 	for _, k := range []string{"0.1", "1", "5", "150"} {
@@ -90,7 +90,7 @@ func TestExpAgainstQuadrature(t *testing.T) {
 }
 
 // TestExpLargeS checks the enclosures at large |s| (where a fixed real-axis
-// quadrature loses digits, MATH.md section 3) against the quadrature of
+// quadrature loses digits) against the quadrature of
 // refExpMpm with panels resolving the oscillation, and cells around those
 // points against the point value.
 func TestExpLargeS(t *testing.T) {
@@ -130,7 +130,7 @@ func mustFloat(s string) float64 {
 
 // TestExpSmallKLimit: as k -> 0, G(u) = e^{-ku} -> 1, the quadrant-I profile
 // becomes the quadrant itself, so D -> A_quadrant = (1 + tanh pi s)/2 and
-// conj(B) -> B_quadrant = (i/2pi) J(s) (MATH.md section 3). The deviation
+// conj(B) -> B_quadrant = (i/2pi) J(s) (package doc, "The quadrant"). The deviation
 // must shrink with k (at least like k log(1/k)).
 func TestExpSmallKLimit(t *testing.T) {
 	for _, s := range []float64{-2, -0.3558, 0, 0.5, 1.5} {
@@ -222,8 +222,8 @@ func TestExpCellContainsPoints(t *testing.T) {
 }
 
 // TestExpLinearAndParity: weights add linearly (two copies of the same
-// term with weights w1, w2 give the symbol of one copy with w1 + w2; MATH.md
-// section 3, the symbol is linear in g), and a quadrant-III term leaves A
+// term with weights w1, w2 give the symbol of one copy with w1 + w2; the
+// symbol is linear in g), and a quadrant-III term leaves A
 // unchanged (the kernel [x+y<0] vanishes for x, y > 0, so M_{++} = 0 for it).
 func TestExpLinearAndParity(t *testing.T) {
 	term := expF(t, "1")

@@ -1,10 +1,3 @@
-// Package regions holds the problem geometry and the certified Mellin
-// symbols of squeeze-invariant phase-space regions.
-//
-// A problem is a wedge inside a confining half-plane. Normalize maps it by
-// a translation and an exact rational SL(2,R) matrix to the quadrant
-// Q = {x > 0, p > 0} inside a half-plane {a x + b p > -d}; relaxation terms
-// live in quadrant III where that half-plane leaves room (see Threshold).
 package regions
 
 import (

@@ -24,7 +24,7 @@ func ratsOf(n [2]Number) [2]*big.Rat { return [2]*big.Rat{n[0].Rat(), n[1].Rat()
 // counter-clockwise ray to a positive multiple of e1 and the second to a
 // positive multiple of e2; and for every z, Normal . z - Offset equals
 // A x” + B p” + D with z” = S (z - Vertex), so the image half-plane is
-// {A x” + B p” > -D}. (Definitions of MATH.md section 2; the last identity
+// {A x” + B p” > -D}. (Definitions of the package doc; the last identity
 // is checked at a few rational points, which determines an affine map.)
 func checkNormalForm(t *testing.T, name string, p Problem, nf Normal) {
 	t.Helper()
@@ -134,8 +134,8 @@ func transform(p Problem, M Mat2, tr [2]*big.Rat) Problem {
 }
 
 // TestReposedBackflow checks that re-posed versions of the backflow problem
-// have the same normal form up to the squeeze freedom. Invariants (MATH.md
-// section 2, re-derived here): under a translation or an SL(2,R) image
+// have the same normal form up to the squeeze freedom. Invariants (package
+// doc, re-derived here): under a translation or an SL(2,R) image
 // (normal transformed by M^-T) a, b, d are unchanged exactly (det[M r1 M r2]
 // = det[r1 r2] and n'.(M r) = n.r); scaling the rays by l1, l2 > 0 sends
 // (a, b) to (a/l2, l2 b), keeping a b and d; swapping the rays changes
@@ -298,7 +298,7 @@ func TestNumberJSON(t *testing.T) {
 
 // TestThreshold checks u0 = d^2/(4ab) on problems with the vertex strictly
 // inside the half-plane, against the direct geometric statement of
-// MATH.md section 2: every point (-t, -u/t) of the hyperbola xp = u in
+// the package doc: every point (-t, -u/t) of the hyperbola xp = u in
 // quadrant III lies outside the image half-plane iff u >= u0. The points
 // are mapped back to the original coordinates and tested against the
 // original half-plane, so the test also exercises S.

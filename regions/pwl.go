@@ -26,7 +26,8 @@ type edgeRef[T interval.Real[T]] struct {
 //	D(s) = [withQuadrant] (1 + tanh(pi s))/2 + (1/pi) int_R G^(2 tanh v) e^{-2isv} sech v dv,
 //	B(s) = conj(sum_j coef_j edge_j(s)),
 //
-// where G^ is the Fourier transform of the pieces (MATH.md section 3 with
+// where G^ is the Fourier transform of the pieces (package doc, "Bands and
+// hats", with
 // t = tanh v; by parity the quadrant-III profile puts the quadrant-I
 // M_{++} into D and conj(M_{+-}) into B) and the edges are the jump and
 // kink terms of edge.go. For real s the integrand f(v) satisfies

@@ -17,13 +17,13 @@ import (
 // and of the implementation, not a proof.
 //
 // Kernel. For a profile h on quadrant III, g(X, p) = [X<0][p<0] h(Xp), the
-// Weyl kernel of MATH.md section 1 with X = (x+y)/2 < 0 and p = -q is
+// Weyl kernel of the package doc with X = (x+y)/2 < 0 and p = -q is
 //
 //	K(x, y) = (1/2pi) int_0^inf h(|X| q) e^{-iq(x-y)} dq = h^(-(x-y)/|X|) / (2pi |X|),
 //
 // h^(w) = int_0^inf h(u) e^{iuw} du (substitute u = |X| q). With
 // w = -(x+y) > 0 and t = (x-y)/w this is K = [x+y<0] kappa(t)/w,
-// kappa(t) = h^(-2t)/pi. (The same computation on quadrant I gives MATH.md's
+// kappa(t) = h^(-2t)/pi. (The same computation on quadrant I gives the package doc's
 // [x+y>0] G^(2(x-y)/(x+y))/(pi(x+y)); the parity rule (x,p) -> (-x,-p)
 // maps one to the other, K^III(x, y) = K^I(-x, -y).) For e^{-ku} this is
 // 1/(pi(k + 2it)), the kernel of directExp.
@@ -382,14 +382,14 @@ func TestCrossCheckBandHat(t *testing.T) {
 	}
 }
 
-// Pointwise symbol from the kernel. MATH.md section 3 gives
+// Pointwise symbol from the kernel. The package doc gives
 // M_{sigma sigma'}(s) = int_0^inf K(sigma, sigma' r) r^{-1/2+is} dr. With
 // K = [x+y<0] kappa(t)/w:
 //   - D = M_{--}: x = -1, y = -r, w = 1+r, t = (r-1)/(r+1); with r = e^x,
 //     D = int_R kappa(tanh(x/2)) e^{isx} / (2 cosh(x/2)) dx;
 //   - B = M_{+-}: x = 1, y = -r (r > 1), w = r-1, t = (r+1)/(r-1); with
 //     r = (t+1)/(t-1), B = int_1^inf kappa(t) (t+1)^{-1/2+is} (t-1)^{-1/2-is} dt
-//     (= conj of MATH.md's M^I_{+-} with G^ = h^, as conj h^(-2t) = h^(2t)).
+//     (= conj of the package doc's M^I_{+-} with G^ = h^, as conj h^(-2t) = h^(2t)).
 // These are computed here by quadratures of our own, independent of the
 // implementation's paths.
 

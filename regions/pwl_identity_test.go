@@ -28,8 +28,8 @@ func symOverlaps(m, n Symbol[interval.F]) bool {
 }
 
 // TestBandAdditivity: chi(a,b) + chi(b,c) = chi(a,c) away from the measure
-// zero set xp = b, and the symbol is linear in the profile (MATH.md section
-// 3: M(s) is an integral of the kernel, which is linear in h), so the sum
+// zero set xp = b, and the symbol is linear in the profile (package doc,
+// "Mellin diagonalisation": M(s) is an integral of the kernel, which is linear in h), so the sum
 // of the enclosures for [a, b) and [b, c) must meet the enclosure for
 // [a, c), at points and on cells (both contain the true values at every s
 // of the cell). Also with c = inf (the quadrant-type term [a, inf)).
@@ -62,7 +62,7 @@ func TestBandAdditivity(t *testing.T) {
 // the band [0, a).
 //
 // The whole quadrant III is the parity image of Q = quadrant I, so by
-// MATH.md section 3 (M^III_{sigma sigma'} = M^I_{-sigma,-sigma'}) its D is
+// the parity rule of the package doc (M^III_{sigma sigma'} = M^I_{-sigma,-sigma'}) its D is
 // M^I_{++} = A_Q(s) and its B = M^III_{+-} = M^I_{-+} = conj(B_Q(s)), with
 // A_Q, B_Q the entries of Quadrant(s). (Note the conjugate: the band's B
 // is conj of the quadrant's B, not B itself; at s = 0 they differ by
@@ -71,7 +71,7 @@ func TestBandAdditivity(t *testing.T) {
 // Lemma (our own). For the band [0, a), 0 < a <= 1, and every real s:
 // |D| <= a and |B| <= (a/pi)(log(2/a) + pi/2).
 // Proof: G^(w) = (e^{iaw} - 1)/(iw) has |G^| <= min(a, 2/|w|). In the
-// formulas of MATH.md section 3, |M_{++}| <= (1/pi) int a sech v dv = a, and
+// formulas of the package doc, |M_{++}| <= (1/pi) int a sech v dv = a, and
 // since |(tau-1)^{-1/2+is}(tau+1)^{-1/2-is}| = (tau^2-1)^{-1/2},
 // |M_{+-}| <= (1/pi)[a int_1^{1/a} (tau^2-1)^{-1/2} dtau
 // + int_{1/a}^inf tau^{-1}(tau^2-1)^{-1/2} dtau]
@@ -122,7 +122,7 @@ func TestBandToQuadrant(t *testing.T) {
 // TestHatAverageOfBands: for the symmetric hat (l, l+L, l+2L),
 // h(u) = (1/L) int_0^L chi[l+x, l+x+L)(u) dx (for l <= u <= l+L the set of
 // x with l+x <= u < l+x+L is [0, u-l], of length u-l; symmetrically on the
-// falling side), so by linearity of the symbol in h (MATH.md section 3)
+// falling side), so by linearity of the symbol in h (package doc)
 // M_hat(s) = (1/L) int_0^L M_band[l+x, l+x+L)(s) dx. The x-integral is done
 // by n-point Gauss-Legendre (gonum) over Approx values of the bands (each
 // band built at the exact decimal l + x_j); the integrand is analytic in x
@@ -266,7 +266,8 @@ func TestPWLSlope(t *testing.T) {
 // |D(s)| <= dmax and |B(s)| <= bmax (Term.Tail's contract). Samples: a few
 // multiples of S with enclosures (the lower end of |.| must not exceed the
 // bound), and one oscillation period of B beyond S densely with Approx
-// (period pi sqrt(|s|/c) in s for an edge at c, MATH.md section 3).
+// (period about pi sqrt(|s|/c) in s for an edge at c: stationary phase at
+// tau ~ sqrt(|s|/c), where d(phase)/ds = log((tau-1)/(tau+1)) ~ -2/tau).
 func TestPWLTail(t *testing.T) {
 	t.Parallel()
 	Ss := []float64{1, 4, 32, 300}
@@ -318,7 +319,7 @@ func TestPWLTail(t *testing.T) {
 
 // TestPWLDecayExponent: as s -> -inf each jump of the quadrant-I profile
 // at knot c > 0 contributes to M_{+-} a stationary-phase term of size
-// ~ |s|^{-3/4} (MATH.md section 5; stationary point tau^2 = 1 + |s|/c of
+// ~ |s|^{-3/4} (package doc, "Bands and hats"; stationary point tau^2 = 1 + |s|/c of
 // the phase 2c tau + s log((tau-1)/(tau+1)), where the amplitude is
 // ~ c/(2|s|) and phi” ~ 4 c^{3/2} |s|^{-1/2}), and each kink (h” has a
 // delta there, so h^ carries e^{icw}/w^2) one of size ~ |s|^{-5/4}

@@ -54,7 +54,7 @@ func nearC(z interval.C[interval.F], v complex128, tol float64) bool {
 func bigPoint(v float64, prec uint) interval.B { return interval.NewB(v, prec) }
 
 // TestQuadrantJZero checks J(0) = sum_n (-1)^n/(n + 1/2) = 2 (1 - 1/3 + 1/5
-// - ...) = pi/2 (Leibniz series; MATH.md section 3), hence A(0) = 1/2 and
+// - ...) = pi/2 (Leibniz series; package doc, "The quadrant"), hence A(0) = 1/2 and
 // B(0) = (i/2pi)(pi/2) = i/4, at 256 bits.
 func TestQuadrantJZero(t *testing.T) {
 	z := bigPoint(0, 256)
@@ -80,7 +80,7 @@ func TestQuadrantJZero(t *testing.T) {
 
 // TestQuadrantFromKernel derives every entry of the quadrant symbol from the
 // position-space kernel K = (1/2)[x>0] delta(x-y) + (i/2pi) PV [x+y>0]/(x-y)
-// (the Weyl kernel of MATH.md section 1 for f = [x>0][p>0], since
+// (the Weyl kernel of the package doc for f = [x>0][p>0], since
 // int_0^inf e^{ipu} dp = pi delta(u) + i PV 1/u) and
 // M_{sigma sigma'}(s) = int_0^inf K(sigma, sigma' r) r^{-1/2+is} dr, by
 // float quadrature (gonum Gauss-Legendre) in r = e^{-t} or r = e^t:
@@ -124,7 +124,7 @@ func TestQuadrantFromKernel(t *testing.T) {
 
 // TestQuadrantSymmetries checks A(s) + A(-s) = 1 (tanh is odd) and
 // J(-s) = conj J(s) (J is the Mellin integral of a real function; the
-// conjugation rule M(-s) ~ conj M(s) of MATH.md section 3), at 128 bits.
+// conjugation rule M(-s) ~ conj M(s)), at 128 bits.
 func TestQuadrantSymmetries(t *testing.T) {
 	for _, s := range []float64{0.125, 0.3558, 1, 2.75, 17, 400} {
 		p, m := bigPoint(s, 128), bigPoint(-s, 128)
@@ -258,7 +258,7 @@ func TestQuadrantEigCell(t *testing.T) {
 		}
 	}
 	// Tight near the minimum: a cell of width 1e-6 at s* = -0.35582 (the
-	// minimiser, MATH.md section 4, not a published source) has width far
+	// minimiser, package doc, not a published source) has width far
 	// below the cell width.
 	c := interval.PointF(-0.35582 - 5e-7).Hull(interval.PointF(-0.35582 + 5e-7))
 	if r := QuadrantEig(c, Lower).Rad(); r > 1e-10 {

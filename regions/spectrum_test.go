@@ -12,7 +12,8 @@ import (
 // Reference values for the bare quadrant operator Op(chi_Q):
 // inf spec about -0.15594 and sup spec about 1.00768 (R. F. Werner,
 // J. Phys. A 21 (1988) 4565; digits from memory); the 20-digit values are
-// from MATH.md section 4, computed with mpmath (not a published source).
+// from the package doc ("The quadrant"), computed with mpmath (not a
+// published source).
 const (
 	quadrantInf20 = "-0.15593984319124276369"
 	quadrantSup20 = "1.0076799700700341398"

@@ -43,8 +43,8 @@ func certificateFor(t *testing.T, r *Result) *certificates.Certificate {
 // the 17th digit of the float64 bracket, the upper end above it by at most
 // the rounding of the recorded error terms (6 digits, rounded up), width
 // below 1e-8, meeting the values that
-// round to 0.0294572 (the double-precision Nystrom value of MATH.md section
-// 2, seen here, not a published source) and below the published backflow
+// round to 0.0294572 (the double-precision Nystrom value of the package doc,
+// seen here, not a published source) and below the published backflow
 // estimate 0.0384517 (A. J. Bracken and G. F. Melloy, J. Phys. A 27 (1994)
 // 2197).
 func TestCertificateAlpha50(t *testing.T) {

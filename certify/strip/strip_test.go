@@ -47,7 +47,7 @@ func slow() bool { return os.Getenv("WEDGEBOUND_SLOW") == "1" }
 // meets reports whether the closed interval x meets [v - h, v + h].
 func meets(x interval.F, v, h float64) bool { return x.Lo() <= v+h && v-h <= x.Hi() }
 
-// Double-precision Nystrom values quoted in MATH.md section 2 (seen here,
+// Double-precision Nystrom values quoted in the package doc (seen here,
 // not a published source), given to 7 decimal places: each bracket must
 // meet the interval of values that round to the quoted one.
 func TestMathNotesFloatValues(t *testing.T) {
@@ -90,7 +90,7 @@ func TestBelowBackflowEstimate(t *testing.T) {
 }
 
 // A(alpha) is non-decreasing (a larger alpha is a longer strip after
-// rescaling, and the strip states are nested; MATH.md section 2). On a small
+// rescaling, and the strip states are nested; package doc). On a small
 // sweep the certified brackets must be consistent with that; here they are
 // even separated, which proves the increase at these points.
 func TestAdvantageIncreasesOnSweep(t *testing.T) {

@@ -137,7 +137,7 @@ func checkTour(t *testing.T, dir, stdout string, plan demoPlan) {
 	}
 
 	// A certified lower bound on the advantage lies below the backflow
-	// estimate (A(alpha) <= c_bm, MATH.md section 2).
+	// estimate (A(alpha) <= c_bm, certify/strip package doc).
 	var sj struct {
 		Advantage struct{ Lower, Upper string }
 	}
@@ -154,7 +154,7 @@ func checkTour(t *testing.T, dir, stdout string, plan demoPlan) {
 		t.Fatalf("sweep.csv: %d rows, %v", len(rowsCSV), err)
 	}
 	// At alpha = 1 the bracket meets the double-precision Nystrom value
-	// A(1) = 0.0060131 of MATH.md section 2 (seen there, not a published
+	// A(1) = 0.0060131 of the certify/strip package doc (seen there, not a published
 	// source; 7 decimals, so within 5e-8).
 	if rowsCSV[1][0] != "1" {
 		t.Fatalf("first sweep alpha %q", rowsCSV[1][0])

@@ -266,7 +266,7 @@ func TestReportPartial(t *testing.T) {
 	}
 }
 
-// With a b = 0 < d no profile is admissible (MATH.md section 2): a bare
+// With a b = 0 < d no profile is admissible (regions package doc): a bare
 // quadrant certificate with threshold none is reported, one with terms is
 // refused. Formatting fixtures built from the shipped certificate.
 func TestReportNoThreshold(t *testing.T) {

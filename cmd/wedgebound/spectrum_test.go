@@ -54,7 +54,7 @@ func TestTermSpecsJSON(t *testing.T) {
 }
 
 // TestSpectrumQuadrantJSON runs the bare quadrant at 10 digits; the values
-// are the 20-digit mpmath values of ../shared/MATH.md section 4 (not a
+// are the 20-digit mpmath values of the regions package doc (not a
 // published source; R. F. Werner, J. Phys. A 21 (1988) 4565 gives
 // -0.15594 and 1.00768, from memory).
 func TestSpectrumQuadrantJSON(t *testing.T) {

@@ -30,7 +30,7 @@ func ratOf(t *testing.T, s string) *big.Rat {
 
 // "wedgebound strip --alpha 50 --json": the advantage bracket has width
 // below 1e-8 and rounds to 0.0294572, the double-precision Nystrom value of
-// MATH.md section 2 (seen here, not a published source), which is given to
+// the certify/strip package doc (seen here, not a published source), which is given to
 // 7 decimal places; the exact decimal 0.0294572 itself lies 6e-9 above the
 // certified bracket, so the check is that the bracket meets
 // [0.02945715, 0.02945725].

@@ -162,7 +162,7 @@ type backflowBound struct {
 // (schema and hash) and returns its claimed bound when the problem is the
 // backflow geometry: edge lower, and a normal form with d = 0 and a b > 0
 // (the vertex on the boundary of the half-plane, strictly inside neither
-// ray's line), the class that MATH.md section 2 shows equivalent to the
+// ray's line), the class that the regions package doc shows equivalent to the
 // backflow problem and to the projectile problem's limit; then -inf spec of
 // the compressed wedge operator is the backflow constant c_bm, so the claim
 // bounds c_bm and hence A(alpha) for every alpha. The claim itself is not

@@ -12,7 +12,7 @@ import (
 )
 
 // backflowProblem is the backflow geometry: states with positive momentum
-// (half-plane p > 0) and the wedge {p > 0, -p < x < 0} (MATH.md section 2).
+// (half-plane p > 0) and the wedge {p > 0, -p < x < 0} (regions package doc).
 func backflowProblem(edge string) certificates.Problem {
 	return certificates.Problem{
 		Vertex:    [2]string{"0", "0"},
@@ -63,13 +63,13 @@ func clone(t testing.TB, c *certificates.Certificate) *certificates.Certificate 
 
 // quadrantLower is the bare quadrant claiming 0.1560 for the lower edge:
 // inf spec = -0.155940 (R. F. Werner, J. Phys. A 21 (1988) 4565, from
-// memory; -0.15593984319124276 with mpmath in MATH.md section 4).
+// memory; -0.15593984319124276 with mpmath in the regions package doc).
 func quadrantLower(t testing.TB) *certificates.Certificate {
 	return certFor(t, "quadrant-lower", relaxation.BuildOptions{Problem: backflowProblem("lower"), Bound: "0.1560", Lo: "-8", Hi: "8"})
 }
 
 // quadrantUpper claims 1.0077 for the upper edge: sup spec = 1.007680
-// (same sources; 1.00767997007003414 in MATH.md).
+// (same sources; 1.00767997007003414 in the regions package doc).
 func quadrantUpper(t testing.TB) *certificates.Certificate {
 	return certFor(t, "quadrant-upper", relaxation.BuildOptions{Problem: backflowProblem("upper"), Bound: "1.0077", Lo: "-8", Hi: "8"})
 }

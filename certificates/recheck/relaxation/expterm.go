@@ -14,7 +14,7 @@ import (
 // expTerm encloses the unit-weight symbol of the profile h(xp) = e^{-k xp}
 // on quadrant III, k > 0.
 //
-// Derivation (MATH.md section 3, re-done here). With G(u) = e^{-ku},
+// Derivation (also in the regions package doc; re-done here). With G(u) = e^{-ku},
 // G^(w) = int_0^inf G(u) e^{iuw} du = 1/(k - iw). The kernel of the
 // quadrant-I symbol G(xp) is K(x, y) = [x+y > 0] G^(2(x-y)/(x+y))/(pi(x+y)),
 // so with a = 1/2 + is:

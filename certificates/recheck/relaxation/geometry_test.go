@@ -20,7 +20,7 @@ func TestNormalFormExamples(t *testing.T) {
 		a, b, d   string
 		threshold string // "" for none
 	}{
-		// Backflow: H = {p > 0}, W = {p > 0, -p < x < 0} (MATH.md section 2).
+		// Backflow: H = {p > 0}, W = {p > 0, -p < x < 0} (regions package doc).
 		{"backflow", prob([2]string{"0", "0"}, [2][2]string{{"0", "1"}, {"-1", "1"}}, [2]string{"0", "1"}, "0"),
 			[4]string{"1", "1", "-1", "0"}, "1", "1", "0", "0"},
 		// Rays given clockwise are reordered.

@@ -43,7 +43,7 @@ func TestHighPrecisionModel(t *testing.T) {
 
 // A piece whose margin is below what float64 intervals resolve is decided
 // by the high-precision retry. The quadrant's minimum is
-// -0.15593984319124276369 (MATH.md, mpmath), so a claim 0.1559398431912428
+// -0.15593984319124276369 (mpmath, regions package doc; not a published source), so a claim 0.1559398431912428
 // holds with a margin of about 4e-17.
 func TestHighPrecisionRetry(t *testing.T) {
 	s := rat(t, "-0.35581989710050001273")

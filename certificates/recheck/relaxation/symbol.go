@@ -27,7 +27,7 @@ const (
 //	B = (i/2pi) J(s) + sum_j w_j conj(M_{+-,j}(s)),  D = sum_j w_j M_{++,j}(s),
 //	J(s) = (1/2)[digamma(3/4 + is/2) - digamma(1/4 + is/2)],
 //
-// (MATH.md section 3; J is the closed form of sum_n (-1)^n/(n + 1/2 + is),
+// (derived in the regions package doc, "The quadrant"; J is the closed form of sum_n (-1)^n/(n + 1/2 + is),
 // obtained by splitting the alternating sum into even and odd n).
 type Model[T interval.Real[T]] struct {
 	Edge    Edge

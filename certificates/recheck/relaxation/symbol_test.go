@@ -10,7 +10,7 @@ import (
 
 // The quadrant operator's spectral edges: inf spec about -0.15594 and sup
 // spec about 1.00768 (R. F. Werner, J. Phys. A 21 (1988) 4565; digits from
-// memory); MATH.md section 4 gives 20 digits computed with mpmath (not a
+// memory); the regions package doc gives 20 digits computed with mpmath (not a
 // published source): min -0.15593984319124276369 at
 // s = -0.35581989710050001273, max 1.0076799700700341398 at
 // s = 0.87220286866793073874.

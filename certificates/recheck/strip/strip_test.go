@@ -107,7 +107,7 @@ func meets(t testing.TB, b certificates.StripBracket, v, h string) bool {
 }
 
 // Certificates over the alpha range pass, and the verifier's own proved
-// brackets meet the double-precision Nystrom values of MATH.md section 2
+// brackets meet the double-precision Nystrom values of the certify/strip package doc
 // (seen here, not a published source; given to 7 decimal places) and lie
 // below the published backflow estimate 0.0384517 (A. J. Bracken and G. F.
 // Melloy, J. Phys. A 27 (1994) 2197), since A(alpha) <= c_bm.

@@ -150,7 +150,7 @@ func TestStripRowsOrthonormal(t *testing.T) {
 
 // The kernel enclosures contain a 256-bit evaluation of
 // -sin(alpha (x^2 - y^2)/4)/(pi (x - y)) by direct formula (a second
-// route), the diagonal is -alpha x/(2 pi) (MATH.md section 2), and the
+// route), the diagonal is -alpha x/(2 pi) (certify/strip package doc), and the
 // enclosures are tight.
 func TestStripKernelEnclosures(t *testing.T) {
 	for _, alpha := range []float64{0.01, 50, 1000} {

@@ -1,0 +1,323 @@
+// Package regions holds the problem geometry and the certified Mellin
+// symbols of squeeze-invariant phase-space regions.
+//
+// A problem is a wedge inside a confining half-plane. Normalize maps it by
+// a translation and an exact rational SL(2,R) matrix to the quadrant
+// Q = {x > 0, p > 0} inside a half-plane {a x + b p > -d}; relaxation terms
+// live in quadrant III where that half-plane leaves room (see Threshold).
+//
+// This comment is the mathematical reference of the package: every formula
+// a relaxation certificate rests on is derived here or in the doc comment
+// it names. Sources are given as (author, year, place), "common practice"
+// or "from memory"; everything else was derived for this project and is
+// checked by the tests named beside it.
+//
+// # Conventions
+//
+// Units with hbar = 1; one degree of freedom, phase space points z = (x, p).
+// The Weyl quantization of a real symbol f is the operator with kernel
+//
+//	K_f(x, y) = (1/2pi) int f((x + y)/2, p) e^{i p (x - y)} dp,
+//
+// and the Wigner function of a normalised state psi is
+//
+//	W_psi(x, p) = (1/2pi) int conj psi(x - r/2) psi(x + r/2) e^{-i p r} dr,
+//
+// normalised so that int int W_psi = 1 and <psi, Op(f) psi> = int int f W_psi
+// (insert the kernel and substitute x, y = X +- r/2). Both are common
+// practice (G. B. Folland, Harmonic Analysis in Phase Space, 1989, ch. 2;
+// from memory).
+//
+// Covariance: phase-space translations and every S in SL(2,R) act by
+// unitaries U (Heisenberg-Weyl operators and the metaplectic representation)
+// with U Op(f) U^-1 = Op(f o T^-1) and W_{U psi} = W_psi o T^-1 for the
+// affine map T (Folland 1989, ch. 4; from memory). So a problem may be moved
+// by any area-preserving affine map without changing any spectrum.
+//
+// Support fact: if psi vanishes on x < 0, the integrand of W_psi(x, p) needs
+// x - r/2 > 0 and x + r/2 > 0, hence x > 0: W_psi vanishes on x < 0.
+// Conversely int W_psi dp = |psi(x)|^2, so the states whose Wigner function
+// lives in {x > 0} are exactly L^2(0, inf). By covariance the states whose
+// Wigner function lives in a half-plane H form a closed subspace; P denotes
+// its orthogonal projection.
+//
+// # The problem and its normal form
+//
+// Input: a wedge W = v + {l1 r1 + l2 r2 : l1, l2 > 0} (opening angle in
+// (0, pi)) inside a half-plane H = {n . z > c}, and an edge (lower or upper).
+// Wanted: inf or sup of <psi, Op(chi_W) psi> over normalised psi in ran P.
+//
+// Normal form (Normalize). Order the rays so that m = det[r1 r2] > 0 and
+// put
+//
+//	S = diag(m, 1) [r1 r2]^-1 = [[r2y, -r2x], [-r1y/m, r1x/m]],
+//
+// which has det S = 1 and sends r1 to (m, 0) and r2 to (0, 1). Then
+// z -> S (z - v) maps W onto Q, and with S^-1 = [r1/m, r2] the
+// half-plane n . z > c becomes
+//
+//	a x + b p > -d,   a = n.r1/m,  b = n.r2,  d = n.v - c.
+//
+// W lies in the closure of H exactly when a >= 0, b >= 0 and d >= 0 (the
+// closure of W is v plus the cone of r1 and r2). The squeeze
+// diag(l, 1/l), l > 0, maps Q onto Q and (a, b, d) to (a/l, l b, d), so
+// only a b and d matter: every problem with d = 0 and a, b > 0 is
+// equivalent to {x + p > 0}, which is the backflow preset (H = {p > 0},
+// W = {p > 0, -p < x < 0} gives a = b = 1, d = 0) and also the projectile
+// preset. Tests: geometry_test.go.
+//
+// # Relaxation and admissibility
+//
+// Let H' = {a x + b p > -d} be the normal-form half-plane and g a bounded
+// real symbol with g = chi_Q on H'. For psi in ran P the Wigner function
+// vanishes off H', so <psi, Op(chi_Q) psi> = int int g W_psi =
+// <psi, Op(g) psi>, and hence
+//
+//	inf spec Op(g) <= <psi, Op(chi_Q) psi> <= sup spec Op(g)   for |psi| = 1 in ran P.
+//
+// That is the claim a relaxation certificate makes: the lower edge of the
+// problem is at least inf spec Op(g), the upper edge at most sup spec Op(g).
+// As an inclusion of spectra, spec(P Op(chi_Q) P) also contains 0 (on
+// ker P), so spec(P Op(chi_Q) P) lies in [inf spec Op(g), sup spec Op(g)]
+// only because 0 lies in that interval; it does for every relaxation used
+// here, since all entries of M(s) below tend to 0 as s -> -inf (A(s) -> 0,
+// every term's D and B -> 0 by its tail lemma), so 0 is in spec Op(g).
+//
+// Relaxations used here are invariant under the squeeze: g = chi_Q +
+// sum_j w_j h_j(xp) on quadrant III, with real weights w_j and profiles h_j
+// on (0, inf). Such a g equals chi_Q on H' iff no profile is nonzero at a
+// point of quadrant III inside H'.
+//
+// Threshold (Normal.Threshold). The point (-t, -u/t), t > 0, of the
+// hyperbola xp = u in quadrant III lies outside H' iff a t + b u/t >= d. By
+// the arithmetic-geometric mean inequality the left side has minimum
+// 2 sqrt(a b u) over t when a b > 0 and infimum 0 when a b = 0. So the whole
+// hyperbola is outside H' iff 4 a b u >= d^2: a profile is admissible iff it
+// vanishes on (0, u0) with
+//
+//	u0 = d^2/(4 a b)   (u0 = 0 when d = 0; no profile at all when d > 0 = a b).
+//
+// u0 is invariant under the squeeze. Every term's support must start at or
+// beyond u0 (Term.Start); certifier and verifier both check it.
+//
+// # Mellin diagonalisation
+//
+// Split psi into channels sigma = + (x > 0) and - (x < 0) and set
+//
+//	phi_sigma(s) = (2pi)^{-1/2} int_0^inf psi(sigma r) r^{-1/2 - is} dr,  s real.
+//
+// With r = e^t this is the Fourier transform of psi(sigma e^t) e^{t/2}, whose
+// L^2 norm is that of psi on the channel, so psi -> (phi_+, phi_-) is unitary
+// from L^2(R) onto L^2(R; C^2). The Weyl kernel of a squeeze-invariant
+// symbol is homogeneous of degree -1 (substitute p -> p/l in K_f), and an
+// operator with such a kernel K acts on (phi_+, phi_-)(s) as multiplication
+// by the 2x2 matrix
+//
+//	M_{sigma sigma'}(s) = int_0^inf K(sigma, sigma' r) r^{-1/2 + is} dr
+//
+// (substitute x = r/rho in the Mellin transform of K psi). For bounded,
+// continuous M(s) the spectrum of the operator is the closure of the union
+// over s of the eigenvalues of M(s) (spectrum of a multiplication operator,
+// common practice). M(s) is Hermitian for real symbols:
+//
+//	M = [[A, B], [conj B, D]],
+//	lambda_min,max = (A + D)/2 -+ R,   R = sqrt(((A - D)/2)^2 + |B|^2)
+//
+// (Symbol.MinEig, Symbol.MaxEig), with s-derivative
+// lambda' = (A' + D')/2 -+ [((A - D)/2)((A' - D')/2) + Re(conj B B')]/R
+// (EigSlope), used in mean-value enclosures over cells of s.
+//
+// Quadrant-I profile. For f = G(xp) on quadrant I (zero elsewhere), with
+// G^(w) = int_0^inf G(u) e^{iuw} du, substituting u = X p in K_f gives
+//
+//	K(x, y) = [x + y > 0] G^(2 (x - y)/(x + y)) / (pi (x + y)),
+//
+// and with r = e^{-2v} in the (+,+) entry and r = (tau - 1)/(tau + 1) in the
+// (+,-) entry:
+//
+//	M_{++}(s) = (1/pi) int_R G^(2 tanh v) e^{-2isv} sech v dv,
+//	M_{+-}(s) = (1/pi) int_1^inf G^(2 tau) (tau - 1)^{-1/2+is} (tau + 1)^{-1/2-is} dtau,
+//	M_{-+}(s) = conj M_{+-}(s)   (substitute r -> 1/r; G^(-w) = conj G^(w)),
+//	M_{--}(s) = 0                (x + y < 0 there).
+//
+// Parity psi(x) -> psi(-x) conjugates Op(f(x, p)) to Op(f(-x, -p)) and swaps
+// the channels, so a profile h(xp) on quadrant III has
+// M^III_{sigma sigma'} = M^I_{-sigma, -sigma'}: it contributes
+// D = M^I_{++}[h] and B = conj M^I_{+-}[h]. Tests: crosscheck_test.go and
+// pwl_crosscheck_test.go compare these symbols with position-space
+// quadratures of the Weyl kernel.
+//
+// # The quadrant
+//
+// For G = 1, G^(w) = pi delta(w) + i PV(1/w). In M_{++} the delta gives 1/2
+// (delta(2 tanh v) = delta(v)/2) and the principal value gives
+// (i/2pi) PV int e^{-2isv} csch v dv = tanh(pi s)/2, from
+// int_R sin(2sv)/sinh v dv = pi tanh(pi s) (I. S. Gradshteyn and
+// I. M. Ryzhik, Table of Integrals, 3.981.1; from memory). In M_{+-} only
+// i/(2 tau) contributes, and dtau (tau-1)^{-1/2+is} (tau+1)^{-1/2-is} =
+// r^{-1/2+is} dr/(1 - r), 1/tau = (1 - r)/(1 + r). Hence (Quadrant)
+//
+//	A(s) = (1 + tanh(pi s))/2,   D(s) = 0,   B(s) = (i/2pi) J(s),
+//	J(s) = int_0^1 r^{a-1}/(1 + r) dr = sum_{n>=0} (-1)^n/(n + a),   a = 1/2 + is,
+//	     = (1/2) [psi(3/4 + is/2) - psi(1/4 + is/2)],
+//	J'(s) = (i/4) [psi'(3/4 + is/2) - psi'(1/4 + is/2)],
+//
+// psi the digamma function: split the alternating sum into even and odd n
+// and use psi(z) = -gamma + sum_n [1/(n+1) - 1/(n+z)] (DLMF 5.7.6). J(0) =
+// pi/2 (Leibniz series).
+//
+// Lemma (QuadrantTail): |J(s)| <= pi/(4|a|). Integrating r^{a-1} by parts,
+// J = 1/(2a) + (1/a) int_0^1 r^a/(1 + r)^2 dr, |r^a| = r^{1/2}, and
+// int_0^1 r^{1/2}/(1 + r)^2 dr = pi/4 - 1/2 (r = t^2). So |J| <= pi/(4|a|),
+// equality at s = 0, and |B| <= 1/(8|a|) <= 1/(8|s|). A(s) increases, so
+// A lies in [(1 + tanh(pi S))/2, 1] for s >= S and in [0, (1 - tanh(pi S))/2]
+// for s <= -S.
+//
+// The quadrant operator alone has inf spec = -0.15593984319124276369...
+// (at s = -0.35581989710050001273...) and sup spec = 1.0076799700700341398...
+// (at s = 0.87220286866793073874...): computed for this project with mpmath
+// from the closed forms above (seen here, not a published source); the
+// first digits agree with R. F. Werner, J. Phys. A 21 (1988) 4565 (from
+// memory). The backflow constant, estimated at 0.0384517 (A. J. Bracken and
+// G. F. Melloy, J. Phys. A 27 (1994) 2197) and 0.038452 (M. Penz, G. Gruebl,
+// S. Kreidl, P. Wagner, J. Phys. A 39 (2006) 423), must lie below every
+// certified upper bound.
+//
+// # Exponential profiles
+//
+// h(xp) = e^{-k xp}, k > 0 (exp.go, expTerm). G^(w) = 1/(k - iw), and the
+// quadrant-I kernel at (1, r) and (1, -r) is 1/(pi ((k - 2i) + (k + 2i) r))
+// and 1/(pi (k - 2i)(1 - q r)), q = (k + 2i)/(k - 2i) = e^{2 i theta},
+// theta = atan(2/k) in (0, pi/2). With the Mellin integral
+// int_0^inf r^{a-1}/(alpha + beta r) dr = alpha^{-1} (beta/alpha)^{-a} pi/sin(pi a)
+// (0 < Re a < 1, |arg(beta/alpha)| < pi; DLMF 5.12.3 after r -> r alpha/beta,
+// from memory) and sin(pi a) = cosh(pi s):
+//
+//	M_{++}(s) = e^{2 theta s} / (|k + 2i| cosh(pi s)),
+//	M_{+-}(s) = I(s) / (pi (k - 2i)),   I(s) = int_0^1 r^{a-1}/(1 - q r) dr,
+//
+// so D = M_{++} > 0 and B = conj(I)/(pi (k + 2i)). I(s) is a contour
+// integral computed as described at expTerm (path turned by -+pi/4 for
+// s >= 1 and s <= -1, Gauss-Legendre panels with the Bernstein-ellipse
+// remainder of gaussBound, explicit truncation).
+//
+// Tail lemma (expTerm.Tail). For side*s >= S > 0:
+// |D| <= 2 e^{-(pi - 2 side theta) S}/|k + 2i| (cosh(pi s) >= e^{pi|s|}/2),
+// and |B| <= C(k)/S with
+//
+//	C(k) = (1/4 + atan(k/2) |k + 2i|/(4k)) / pi   (increasing from 1/(2pi) to (1/4 + pi/8)/pi ~ 0.2046):
+//
+// by parts I = 1/(a(1 - q)) - (q/a) int_0^1 r^a (1 - q r)^{-2} dr, with
+// |1 - q| = 4/|k + 2i| and int_0^1 |1 - q r|^{-2} dr = (pi/2 - theta)/sin 2theta
+// = atan(k/2) |k + 2i|^2/(4k).
+// The exponential profile starts at xp = 0, so it is admissible only when
+// u0 = 0.
+//
+// # Bands and hats
+//
+// Bands (band.go) are h = 1 on from < xp < to (to may be inf); hats (hat.go)
+// rise linearly from 0 at left to 1 at peak and fall to 0 at right. Both are
+// piecewise linear with compact pieces (pwl.go, pwlTerm), except that the
+// band [a, inf) is written as 1 - [0, a): its D is A(s) - M_{++}[[0, a)]
+// and its edge term is -E(a, s).
+//
+// Diagonal entry. For real s the integrand of M_{++} satisfies
+// f(-v) = conj f(v), so D = (2/pi) Re int_0^inf G^(2 tanh v) e^{-2isv} sech v dv.
+// A linear piece rising from h0 at x0 to h1 at x0 + L has
+//
+//	G^(w) = L e^{i x0 w} (h0 psi1(iLw) + (h1 - h0) psi2(iLw)),
+//	psi1(z) = int_0^1 e^{z t} dt = (e^z - 1)/z = sum z^n/(n+1)!,
+//	psi2(z) = int_0^1 t e^{z t} dt = (e^z (z - 1) + 1)/z^2 = sum z^n/((n+2) n!),
+//
+// the series truncated after N terms with remainder at most 2|z|^N/N! when
+// N + 1 >= 2|z| (psiFunctions). The integral is cut at V with
+// |int_V^inf| <= 2 H1 e^{-V}, H1 = int |h| (|G^| <= H1, sech v <= 2 e^{-v}),
+// and [0, V] goes to the path quadrature of pathquad.go. A test compares the
+// step diagonal with Euler's integral for Kummer's function (DLMF 13.4.1).
+//
+// Diagonal tail lemma (pwlTerm.diagTail): the integrand is analytic in
+// |Im v| < pi/2, so the line may be moved by -+i eta (0 < eta < pi/2).
+// Moving up for s <= -S gives |e^{-2isv}| <= e^{-2 S eta}, Im tanh >= 0 so
+// |G^| <= H1, and |sech(v + i eta)| = (sinh^2 v + cos^2 eta)^{-1/2}; moving
+// down for s >= S gives the same factor e^{-2 S eta} but only
+// |G^| <= H1 e^{2 umax tan eta} (|Im tanh(v - i eta)| <= tan eta, h supported
+// in [0, umax]). With Sigma0 and Sigma1 the integrals of
+// (sinh^2 v + cos^2 eta)^{-1/2} and |v| times it over R (bounded in
+// sigmaBounds by v^2 <= sinh^2 v on |v| <= 1 and
+// sinh v >= e^v (1 - e^{-2})/2 beyond):
+//
+//	|D| <= (H1/pi) e^x Sigma0,   |D'| <= (2 H1/pi) e^x (Sigma1 + eta Sigma0),
+//	x = -2 S eta  (+ 2 umax tan eta for s >= S).
+//
+// Off-diagonal entry: edge terms (edge.go). A jump of G by -1 at c >= 0
+// adds -i e^{icw}/w to G^ (as at the upper end of a band; hence
+// M_{+-}[band (a, b)] = E(b, s) - E(a, s), E(inf, s) = 0), a kink (G gains
+// (u - c)_+) adds -e^{icw}/w^2, and a hat with knots c1 < c2 < c3 is
+// sum_j sigma_j (u - c_j)_+ with slopes sigma = (1/(c2 - c1),
+// -1/(c2 - c1) - 1/(c3 - c2), 1/(c3 - c2)), whose singular parts at w = 0
+// cancel (sum sigma_j = sum sigma_j c_j = 0). With
+// r = e^{-t}, tau = coth(t/2), 1/(2i tau) = (1 - r)/(2i(1 + r)) and
+// -1/(4 tau^2) = -(1 - r)^2/(4 (1 + r)^2):
+//
+//	E(c, s) = (1/(2 pi i)) int_0^inf e^{-at} e^{2ic coth(t/2)} / (1 + e^{-t}) dt,
+//	K(c, s) = -(1/(4 pi)) int_0^inf e^{-at} e^{2ic coth(t/2)} (1 - e^{-t})/(1 + e^{-t})^2 dt,
+//	E(0, s) = -(i/(2 pi)) J(s),   K(0, s) = -(1/(4 pi)) (1 - 2is J(s)),
+//
+// the last from (1 - r)/(1 + r)^2 = 2/(1 + r)^2 - 1/(1 + r) and
+// int_0^1 r^{a-1}/(1 + r)^2 dr = 1/2 - (a - 1) J (by parts).
+// For c > 0 the integrals run on complex paths (for s >= 0 down to
+// -i pi/2 and along it; for s < 0 through the real saddle
+// t* = 2 asinh(sqrt(c/|s|)) of F(t) = -s t + 2c coth(t/2)), chosen per
+// window of s; only the quadrature remainder (Bernstein ellipse) and the
+// explicitly bounded cut-off pieces enter the enclosure, never the choice
+// of path. Tests: edge_test.go checks E against the tau form above,
+// pwl_identity_test.go the c -> 0 limits, band additivity and the decay
+// exponents.
+//
+// Edge tail lemmas (edgeTerm.tail, where the proofs are written out). For
+// s >= S: on the path 0 -> -i pi/2 -> -i pi/2 + inf, |e^{2ic coth(t/2)}| <= 1
+// (Im coth(t/2) >= 0 for -pi < Im t <= 0), so
+//
+//	|E| <= (1/(2 pi)) (1/(sqrt2 S) + 2 e^{-pi S/2}),
+//	|K| <= (1/(4 pi)) (1/(2 S^2) + 2 sqrt2 e^{-pi S/2}).
+//
+// For s <= -S (sigma = -s): 2 pi i E = int_0^inf amp e^{iF} dt with
+// amp = 1/(2 cosh(t/2)), F = sigma t + 2c coth(t/2), and -4 pi K the same
+// with amp = sinh(t/2)/(2 cosh^2(t/2)). Split at T with
+// sinh^2(T/2) = q = kappa c/sigma, kappa > 1. On [0, T] the second
+// derivative c csch^2(t/2) coth(t/2) of F decreases, so it is at least
+// lambda = (sigma/kappa) sqrt((1 + q)/q), and
+// van der Corput's second-derivative lemma with constant 4 sqrt2 (first-
+// derivative test 2/d on the at most two pieces where |F'| >= d, length
+// 2d/lambda where |F'| < d, d = sqrt(2 lambda)) together with Abel summation
+// gives |int_0^T| <= 4 sqrt2 lambda^{-1/2} (|amp(T)| + V(amp; 0, T)), that
+// factor being 1/2 (jump) or min(sqrt q, 1/2) (kink). On [T, inf) the path
+// T -> T + i pi/2 -> inf + i pi/2 has Im F >= sigma (1 - 1/kappa) Im t on the
+// vertical leg and Im F >= sigma (pi/2 - 1/kappa) on the horizontal one.
+// The result decays like c^{1/4} |s|^{-3/4} (jumps) and c^{3/4} |s|^{-5/4}
+// (kinks). For c = 0: |E| <= 1/(8S), and two integrations by parts of
+// 1 - 2is J = int_0^1 r^{a-1} (1 - r)/(1 + r)^2 dr give |K| <= 3/(4 pi S^2).
+//
+// # Quadrature
+//
+// Every integral on a finite path is a sum of Gauss-Legendre panels
+// (gaussLegendre: nodes proved by sign changes of P_n, weights
+// 2/((1 - x^2) P_n'(x)^2)) plus, per panel of half-length h, the remainder
+//
+//	h * 64 M / (15 (rho^2 - 1) rho^{2n})
+//
+// for an integrand analytic in the Bernstein ellipse E_rho of the panel and
+// bounded by M there (L. N. Trefethen, "Is Gauss quadrature better than
+// Clenshaw-Curtis?", SIAM Review 50 (2008), Theorem 4.5; gaussBound). M is
+// an interval bound over boxes covering the ellipse and the whole s-range
+// a rule serves (pathRule, expTerm.panelBound).
+//
+// # What a certificate covers
+//
+// inf over all real s, not a sample: an enclosure of the edge eigenvalue on
+// every cell of a cover of [s_lo, s_hi] (direct or mean-value form,
+// Relaxation.Eig), and on both tails |s| >= S an enclosure built from the
+// tail lemmas (TailSymbol: A from QuadrantTail, D in the boxes of the terms'
+// lemmas, and B replaced by |B| in [0, bm], since the eigenvalues depend on
+// B only through |B|).
+package regions
