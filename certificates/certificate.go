@@ -40,6 +40,8 @@ type Certificate struct {
 	Tool       Tool        `json:"tool"`
 	Relaxation *Relaxation `json:"relaxation,omitempty"`
 	Strip      *Strip      `json:"strip,omitempty"`
+	Flight     *Flight     `json:"flight,omitempty"`
+	Matched    *Matched    `json:"matched,omitempty"`
 	// SHA256 is the hex SHA-256 of the canonical encoding of the certificate
 	// with this field empty.
 	SHA256 string `json:"sha256"`
@@ -188,17 +190,33 @@ func (c *Certificate) validate() error {
 	if c.Tool.Name == "" || c.Tool.Version == "" {
 		return errors.New("missing tool name or version")
 	}
+	sections := 0
+	for _, set := range []bool{c.Relaxation != nil, c.Strip != nil, c.Flight != nil, c.Matched != nil} {
+		if set {
+			sections++
+		}
+	}
 	switch c.Kind {
 	case KindRelaxation:
-		if c.Relaxation == nil || c.Strip != nil {
+		if c.Relaxation == nil || sections != 1 {
 			return errors.New("a relaxation certificate must hold exactly the relaxation section")
 		}
 		return c.Relaxation.validate()
 	case KindStrip:
-		if c.Strip == nil || c.Relaxation != nil {
+		if c.Strip == nil || sections != 1 {
 			return errors.New("a strip certificate must hold exactly the strip section")
 		}
 		return c.Strip.validate()
+	case KindFlight:
+		if c.Flight == nil || sections != 1 {
+			return errors.New("a flight certificate must hold exactly the flight section")
+		}
+		return c.Flight.validate()
+	case KindMatched:
+		if c.Matched == nil || sections != 1 {
+			return errors.New("a matched certificate must hold exactly the matched section")
+		}
+		return c.Matched.validate()
 	}
 	return fmt.Errorf("unknown certificate kind %q", c.Kind)
 }

@@ -193,3 +193,13 @@ func (a Alpha) View(digits int) (AlphaValue, error) {
 	}
 	return AlphaValue{Value: a.Expr(), Lower: lo, Upper: hi, Units: a.units}, nil
 }
+
+// AlphaOf returns alpha = r, or alpha = 2 pi r when twoPi is set, for a
+// positive rational r (exact, no physical units recorded). Reductions that
+// arrive at alpha by exact arithmetic, such as multi-stage flights, use it.
+func AlphaOf(r *big.Rat, twoPi bool) (Alpha, error) {
+	if r == nil || r.Sign() <= 0 {
+		return Alpha{}, errors.New("alpha must be a positive rational")
+	}
+	return Alpha{rat: new(big.Rat).Set(r), twoPi: twoPi}, nil
+}
