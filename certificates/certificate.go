@@ -41,7 +41,6 @@ type Certificate struct {
 	Relaxation *Relaxation `json:"relaxation,omitempty"`
 	Strip      *Strip      `json:"strip,omitempty"`
 	Flight     *Flight     `json:"flight,omitempty"`
-	Matched    *Matched    `json:"matched,omitempty"`
 	// SHA256 is the hex SHA-256 of the canonical encoding of the certificate
 	// with this field empty.
 	SHA256 string `json:"sha256"`
@@ -191,7 +190,7 @@ func (c *Certificate) validate() error {
 		return errors.New("missing tool name or version")
 	}
 	sections := 0
-	for _, set := range []bool{c.Relaxation != nil, c.Strip != nil, c.Flight != nil, c.Matched != nil} {
+	for _, set := range []bool{c.Relaxation != nil, c.Strip != nil, c.Flight != nil} {
 		if set {
 			sections++
 		}
@@ -212,11 +211,6 @@ func (c *Certificate) validate() error {
 			return errors.New("a flight certificate must hold exactly the flight section")
 		}
 		return c.Flight.validate()
-	case KindMatched:
-		if c.Matched == nil || sections != 1 {
-			return errors.New("a matched certificate must hold exactly the matched section")
-		}
-		return c.Matched.validate()
 	}
 	return fmt.Errorf("unknown certificate kind %q", c.Kind)
 }
