@@ -54,7 +54,7 @@ func TestFlightBadInput(t *testing.T) {
 
 func TestFlightCertificate(t *testing.T) {
 	path := filepath.Join(t.TempDir(), "f.json")
-	code, _, errs := runCmd(flightCmd, "--stages", "../../testdata/flight-stages.json", "--width", "1e-6", "--out", path)
+	code, _, errs := runCmd(flightCmd, "--stages", "../../testdata/flights/four-stages.json", "--width", "1e-6", "--out", path)
 	if code != 0 {
 		t.Fatalf("exit %d: %s", code, errs)
 	}

@@ -99,7 +99,7 @@ func TestFlightTampering(t *testing.T) {
 }
 
 // The shipped flight certificate (testdata/flight.json, from
-// testdata/flight-stages.json) passes.
+// testdata/flights/four-stages.json) passes.
 func TestShippedFlight(t *testing.T) {
 	c, err := certificates.ReadFile("../../../testdata/flight.json")
 	if err != nil {
