@@ -1,6 +1,7 @@
 package regions
 
 import (
+	"fmt"
 	"testing"
 
 	"wedgebound/interval"
@@ -87,5 +88,24 @@ func BenchmarkExpRegimeBuild(b *testing.B) {
 	for b.Loop() {
 		term, _ := NewTerm(interval.PointF(0), "exp", map[string]string{"k": "150"})
 		term.Enclose(c)
+	}
+}
+
+// BenchmarkQuadrantEdges proves both edges of the bare quadrant (the work
+// of "spectrum --quadrant --digits N", one edge after the other). The
+// package caches (Bernoulli numbers, Stirling coefficients, pi) are warm
+// after the first iteration, so this is the steady cost; BENCHMARKS.md
+// gives whole-process times as well.
+func BenchmarkQuadrantEdges(b *testing.B) {
+	for _, d := range []int{30, 100, 1000} {
+		b.Run(fmt.Sprintf("digits=%d", d), func(b *testing.B) {
+			for b.Loop() {
+				for _, e := range []Edge{Lower, Upper} {
+					if _, err := SolveQuadrantEdge(e, d, nil); err != nil {
+						b.Fatal(err)
+					}
+				}
+			}
+		})
 	}
 }

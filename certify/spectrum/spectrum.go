@@ -13,9 +13,11 @@
 // promise: when the cell budget (MaxCells) or the narrowest cell
 // (MinWidth) stops the refinement, the interval is wider but still proved.
 //
-// Policy (how much work is spent, not what is proved): the bare quadrant
-// runs at digits*log2(10) + 40 bits with float64 cells tried first; with
-// terms, float64 intervals and at most MaxTermDigits digits. The tails are
+// The bare quadrant has its own route (QuadrantEdges): the value comes
+// from a Newton-located critical point and a convexity bound, so its
+// precision grows with the digits asked for without a fine cover.
+//
+// Policy (how much work is spent, not what is proved): with terms, float64 intervals and at most MaxTermDigits digits. The tails are
 // pushed out (S doubles from 8 up to 2^14) until the lemmas' bound on |B|
 // is below 0.002 for s < 0 and both tail eigenvalue enclosures are
 // narrower than 0.004 (a profile reaching xp = c keeps the bound on D
@@ -24,8 +26,8 @@ package spectrum
 
 import (
 	"fmt"
-	"math"
 	"math/big"
+	"sync"
 
 	"wedgebound/certify"
 	"wedgebound/interval"
@@ -34,8 +36,9 @@ import (
 
 // Limits of the digits a caller may ask for.
 const (
-	// MaxQuadrantDigits is the most digits Quadrant accepts.
-	MaxQuadrantDigits = 60
+	// MaxQuadrantDigits is the most digits Quadrant accepts (about 17000
+	// bits of working precision, a few minutes).
+	MaxQuadrantDigits = 5000
 	// MaxTermDigits is the most digits Terms accepts: with terms the cells
 	// use direct float64-interval enclosures, which settle a few digits
 	// within the cell budget.
@@ -47,14 +50,39 @@ const (
 type Progress func(stage string, done, total int)
 
 // Quadrant encloses inf spec and sup spec of Op(chi_Q) to about digits
-// significant digits (1..MaxQuadrantDigits), at a precision chosen from
-// digits.
+// significant digits (1..MaxQuadrantDigits); see QuadrantEdges.
 func Quadrant(digits int) ([2]interval.B, error) {
+	r, err := QuadrantEdges(digits, nil)
+	return [2]interval.B{r[0].Value, r[1].Value}, err
+}
+
+// QuadrantEdges proves both edges of the bare quadrant (index 0: inf spec,
+// 1: sup spec) with width below 10^-(digits+2) or so, together with the
+// critical points where they are attained, by regions.SolveQuadrantEdge
+// (convexity window, Newton's method with doubling precision, Taylor
+// bound of the value, float64 cover elsewhere). The two edges run
+// concurrently. progress may be nil.
+func QuadrantEdges(digits int, progress Progress) ([2]regions.QuadrantEdge, error) {
+	var out [2]regions.QuadrantEdge
 	if digits < 1 || digits > MaxQuadrantDigits {
-		return [2]interval.B{}, fmt.Errorf("digits %d is outside 1..%d", digits, MaxQuadrantDigits)
+		return out, fmt.Errorf("digits %d is outside 1..%d", digits, MaxQuadrantDigits)
 	}
-	prec := uint(float64(digits)*math.Log2(10)) + 40
-	return Enclose(interval.NewB(0, prec), regions.Relaxation[interval.B]{}, digits, true, nil)
+	var errs [2]error
+	var wg sync.WaitGroup
+	for i, e := range []regions.Edge{regions.Lower, regions.Upper} {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			out[i], errs[i] = regions.SolveQuadrantEdge(e, digits, progress)
+		}()
+	}
+	wg.Wait()
+	for _, err := range errs {
+		if err != nil {
+			return out, err
+		}
+	}
+	return out, nil
 }
 
 // Terms encloses inf spec and sup spec of Op(chi_Q + terms of rel) to about

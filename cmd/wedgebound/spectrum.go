@@ -35,7 +35,7 @@ func runSpectrum(args []string, stdout, stderr io.Writer) int {
 	quadrant := fs.Bool("quadrant", false, "the bare quadrant {x > 0, p > 0}")
 	termsFile := fs.String("terms", "", "JSON file with relaxation terms [{\"kind\":..., \"params\":{...}, \"weight\":...}] added in quadrant III")
 	termFlags := fs.StringArray("term", nil, "one relaxation term KIND,NAME=VALUE,...,weight=W (repeatable), e.g. band,from=0,to=2,weight=0.3 or hat,left=0,peak=1,right=4,weight=-0.5")
-	digits := fs.Int("digits", 12, "significant digits wanted (1..60 for --quadrant, default 12; 1..5 with --terms, default 4)")
+	digits := fs.Int("digits", 12, fmt.Sprintf("significant digits wanted (1..%d for --quadrant, default 12; 1..%d with --terms, default 4)", spectrum.MaxQuadrantDigits, spectrum.MaxTermDigits))
 	asJSON := fs.Bool("json", false, "print JSON with fields inf and sup")
 	quiet := fs.Bool("quiet", false, "no progress display")
 	fs.Usage = func() {
@@ -79,12 +79,20 @@ func runSpectrum(args []string, stdout, stderr io.Writer) int {
 		return 2
 	}
 	var res [2]interval.B
+	var at [2]*bracket
 	if *quadrant {
-		var err error
-		res, err = spectrum.Quadrant(*digits)
+		bar := newProgress(stderr, *quiet)
+		rs, err := spectrum.QuadrantEdges(*digits, bar.update)
+		bar.done()
 		if err != nil {
 			fmt.Fprintf(stderr, "wedgebound spectrum: %v\n", err)
 			return 1
+		}
+		for i, r := range rs {
+			res[i] = r.Value
+			if b, err := toBracket(r.At, *digits/2+2); err == nil {
+				at[i] = &b
+			}
 		}
 	} else {
 		if *digits > spectrum.MaxTermDigits {
@@ -124,13 +132,18 @@ func runSpectrum(args []string, stdout, stderr io.Writer) int {
 	}
 	if *asJSON {
 		out := struct {
-			Inf bracket `json:"inf"`
-			Sup bracket `json:"sup"`
-		}{inf, sup}
+			Inf   bracket  `json:"inf"`
+			Sup   bracket  `json:"sup"`
+			InfAt *bracket `json:"inf_at,omitempty"`
+			SupAt *bracket `json:"sup_at,omitempty"`
+		}{inf, sup, at[0], at[1]}
 		b, _ := json.MarshalIndent(out, "", "  ")
 		fmt.Fprintln(stdout, string(b))
 		return 0
 	}
 	fmt.Fprintf(stdout, "inf spec in [%s, %s]\nsup spec in [%s, %s]\n", inf.Lower, inf.Upper, sup.Lower, sup.Upper)
+	if at[0] != nil && at[1] != nil {
+		fmt.Fprintf(stdout, "attained at s in [%s, %s] and s in [%s, %s]\n", at[0].Lower, at[0].Upper, at[1].Lower, at[1].Upper)
+	}
 	return 0
 }

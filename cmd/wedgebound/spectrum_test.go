@@ -25,6 +25,8 @@ func TestSpectrumFlagErrors(t *testing.T) {
 		{[]string{"--term", "band,from=2,to=1,weight=1"}, "from < to"},
 		{[]string{"--term", "hat,left=0,peak=1,right=2,weight=NaN"}, "not a finite number"},
 		{[]string{"--term", "band,from=0,to=1,weight=1", "--digits", "9"}, "at most 5 digits"},
+		{[]string{"--quadrant", "--digits", "5001"}, "outside 1..5000"},
+		{[]string{"--quadrant", "--digits", "0"}, "outside 1..5000"},
 	} {
 		var out, errb bytes.Buffer
 		if rc := runSpectrum(c.args, &out, &errb); rc != 2 {
@@ -68,6 +70,48 @@ func TestSpectrumQuadrantJSON(t *testing.T) {
 	}
 	if !strings.HasPrefix(r.Inf.Lower, "-0.155939843") || !strings.HasPrefix(r.Sup.Upper, "1.00767997") {
 		t.Errorf("quadrant spectrum %+v", r)
+	}
+}
+
+// TestSpectrumQuadrantManyDigits runs 250 digits: both brackets must agree
+// in their first 250 significant digits with the 1100-digit mpmath values
+// of testdata/quadrant/edges-1100.txt (from testdata/quadrant/edges_mpmath.py;
+// not a published source), and the critical points are reported.
+func TestSpectrumQuadrantManyDigits(t *testing.T) {
+	var out, errb bytes.Buffer
+	if rc := runSpectrum([]string{"--quadrant", "--digits", "250", "--json"}, &out, &errb); rc != 0 {
+		t.Fatalf("exit %d: %s", rc, errb.String())
+	}
+	var r struct {
+		Inf, Sup     bracket
+		InfAt, SupAt *bracket `json:",omitempty"`
+	}
+	if err := json.Unmarshal(out.Bytes(), &r); err != nil {
+		t.Fatal(err)
+	}
+	ref, err := os.ReadFile("../../testdata/quadrant/edges-1100.txt")
+	if err != nil {
+		t.Fatal(err)
+	}
+	want := map[string]string{}
+	for _, line := range strings.Split(string(ref), "\n") {
+		if f := strings.Fields(line); len(f) == 6 {
+			want[f[0]] = f[1]
+		}
+	}
+	// 250 significant digits: "-0." adds three characters, "." one.
+	for name, b := range map[string]bracket{"inf": r.Inf, "sup": r.Sup} {
+		w := want[name]
+		n := 250 + 1
+		if strings.HasPrefix(w, "-0.") {
+			n = 250 + 3
+		}
+		if len(w) < n || len(b.Lower) < n || len(b.Upper) < n || b.Lower[:n] != w[:n] && b.Upper[:n] != w[:n] {
+			t.Errorf("%s: got [%.40s..., %.40s...], reference %.40s...", name, b.Lower, b.Upper, w)
+		}
+	}
+	if !strings.Contains(out.String(), "inf_at") || !strings.Contains(out.String(), "sup_at") {
+		t.Errorf("no critical points in %s", out.String())
 	}
 }
 
