@@ -1,7 +1,8 @@
-// Package certify turns relaxations into proofs: it covers the Mellin
-// variable s with cells, encloses the extreme eigenvalue of the 2x2 symbol
-// on each cell in interval arithmetic, refines cells whose margin is thin,
-// and closes the cover with tail lemmas.
+// Package certify holds what the certifiers of every kind share: the
+// adaptive cover of a real variable by cells whose enclosures a predicate
+// accepts (Cover), the extremum solver built on it (Extreme) and the
+// parallel loop (For). Each certificate kind has its own package under
+// this one (certify/relaxation, certify/strip, ...).
 package certify
 
 import (
@@ -92,40 +93,27 @@ func Cover[T interval.Real[T]](like T, f CellFunc[T], grid []*big.Rat, accept fu
 		total int
 		done  int
 		over  bool
-		wg    sync.WaitGroup
 	)
-	jobs := make(chan int)
-	for range workers {
-		wg.Add(1)
-		go func() {
-			defer wg.Done()
-			for i := range jobs {
-				cells := refine(like, f, grid[i], grid[i+1], accept, minW, maxCells)
-				mu.Lock()
-				parts[i] = cells
-				total += len(cells)
-				if total > maxCells {
-					over = true
-				}
-				done++
-				if opt.Progress != nil {
-					opt.Progress(done, n)
-				}
-				mu.Unlock()
-			}
-		}()
-	}
-	for i := range n {
+	For(n, workers, func(i int) {
 		mu.Lock()
 		stop := over
 		mu.Unlock()
 		if stop {
-			break
+			return
 		}
-		jobs <- i
-	}
-	close(jobs)
-	wg.Wait()
+		cells := refine(like, f, grid[i], grid[i+1], accept, minW, maxCells)
+		mu.Lock()
+		parts[i] = cells
+		total += len(cells)
+		if total > maxCells {
+			over = true
+		}
+		done++
+		if opt.Progress != nil {
+			opt.Progress(done, n)
+		}
+		mu.Unlock()
+	})
 	if over {
 		return nil, fmt.Errorf("certify: the cover needs more than %d cells", maxCells)
 	}

@@ -6,6 +6,7 @@ import (
 
 	"gonum.org/v1/gonum/mat"
 
+	"wedgebound/certify"
 	"wedgebound/interval"
 )
 
@@ -98,7 +99,7 @@ func psdShift(Hc []float64, N int, est float64, sign float64, scale float64, wor
 		sg := interval.PointF(sign)
 		sig := interval.PointF(sigma)
 		rows := make([]interval.F, N)
-		parallelFor(N, workers, func(j int) {
+		certify.For(N, workers, func(j int) {
 			var acc interval.F
 			for k := j; k < N; k++ {
 				// (R^T R)_jk = sum_{i <= j} R_ij R_ik

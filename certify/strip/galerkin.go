@@ -1,6 +1,7 @@
 package strip
 
 import (
+	"wedgebound/certify"
 	"wedgebound/interval"
 )
 
@@ -43,7 +44,7 @@ func kernelMatrix(r *gaussRule, alpha float64, workers int) [][]interval.F {
 	sn := make([]interval.F, n)
 	cs := make([]interval.F, n)
 	al := interval.PointF(alpha)
-	parallelFor(n, workers, func(a int) {
+	certify.For(n, workers, func(a int) {
 		head[a], tail[a] = splitNode(r.node[a])
 		x := r.node[a].Sub(r.node[a].Int(1)).Scale(-1)
 		u := x.Sqr().Mul(x.Float(alpha)).Scale(-2)
@@ -56,7 +57,7 @@ func kernelMatrix(r *gaussRule, alpha float64, workers int) [][]interval.F {
 	for a := range K {
 		K[a] = make([]interval.F, n)
 	}
-	parallelFor(n, workers, func(a int) {
+	certify.For(n, workers, func(a int) {
 		for b := a; b < n; b++ {
 			var k interval.F
 			if a == b {
@@ -109,7 +110,7 @@ func galerkinMatrix(r *gaussRule, V [][]interval.F, K [][]interval.F, N int, wor
 	}
 	// TT[k][a] = sum_b K[a][b] BT[k][b]
 	TT := make([][]interval.F, N)
-	parallelFor(N, workers, func(k int) {
+	certify.For(N, workers, func(k int) {
 		row := make([]interval.F, n)
 		for a := 0; a < n; a++ {
 			row[a] = dotF(K[a], BT[k])
@@ -120,7 +121,7 @@ func galerkinMatrix(r *gaussRule, V [][]interval.F, K [][]interval.F, N int, wor
 	for j := range H {
 		H[j] = make([]interval.F, N)
 	}
-	parallelFor(N, workers, func(j int) {
+	certify.For(N, workers, func(j int) {
 		for k := j; k < N; k++ {
 			H[j][k] = dotF(BT[j], TT[k])
 		}

@@ -6,6 +6,7 @@ import (
 	"math/big"
 	"sync"
 
+	"wedgebound/certify"
 	"wedgebound/interval"
 )
 
@@ -103,7 +104,7 @@ func newGaussRule(n int, workers int) (*gaussRule, error) {
 	half := n / 2
 	r := &gaussRule{n: n, node: make([]interval.B, n), center: make([]interval.B, n), weight: make([]interval.F, n)}
 	errs := make([]error, half)
-	parallelFor(half, workers, func(i int) {
+	certify.For(half, workers, func(i int) {
 		errs[i] = r.verifyNode(i)
 	})
 	for _, e := range errs {
@@ -206,7 +207,7 @@ func (r *gaussRule) legendreValues(N int, workers int) [][]interval.F {
 	n := r.n
 	V := make([][]interval.F, n)
 	half := (n + 1) / 2
-	parallelFor(half, workers, func(a int) {
+	certify.For(half, workers, func(a int) {
 		c := r.center[a]
 		prec := nodeBits + 64 + growthBits(c.Lo(), N)
 		x := c.WithPrec(prec)

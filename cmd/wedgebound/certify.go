@@ -10,7 +10,7 @@ import (
 	"github.com/spf13/pflag"
 
 	"wedgebound/certificates"
-	"wedgebound/certify"
+	"wedgebound/certify/relaxation"
 	"wedgebound/regions"
 )
 
@@ -77,7 +77,7 @@ func runCertify(args []string, stdout, stderr io.Writer) int {
 			return fail("%s: %v", *problemFile, err)
 		}
 	}
-	cfg := certify.Config{Problem: p, WeightBound: *weightBound, Margin: *margin, Workers: *workers}
+	cfg := relaxation.Config{Problem: p, WeightBound: *weightBound, Margin: *margin, Workers: *workers}
 	if s := strings.TrimSpace(*exps); s != "" && s != "none" {
 		cfg.Ks = splitList(s)
 	}
@@ -93,7 +93,7 @@ func runCertify(args []string, stdout, stderr io.Writer) int {
 	}
 	bar := newProgress(stderr, *quiet)
 	cfg.Progress = bar.update
-	res, err := certify.Run(cfg)
+	res, err := relaxation.Run(cfg)
 	bar.done()
 	if err != nil {
 		fmt.Fprintf(stderr, "wedgebound certify: %v\n", err)

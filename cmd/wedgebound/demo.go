@@ -19,7 +19,7 @@ import (
 	"github.com/spf13/pflag"
 
 	"wedgebound/certificates"
-	"wedgebound/certify"
+	"wedgebound/certify/relaxation"
 	"wedgebound/certify/strip"
 	"wedgebound/regions"
 )
@@ -131,11 +131,11 @@ func runDemo(args []string, stdout, stderr io.Writer) int {
 	}
 	u0, _ := nf.Threshold()
 	say("problem: %s -> %s (normal form {%s}, threshold d^2/(4ab) = %s)",
-		certify.Describe(p), path(demoProblemFile), normalText(nf), regions.RatString(u0))
+		relaxation.Describe(p), path(demoProblemFile), normalText(nf), regions.RatString(u0))
 
 	// (b) Certify with one exponential profile.
 	bar := newProgress(stderr, false)
-	res, err := certify.Run(certify.Config{Problem: p, Ks: []string{plan.k}, Margin: plan.margin, Workers: *workers, Progress: bar.update})
+	res, err := relaxation.Run(relaxation.Config{Problem: p, Ks: []string{plan.k}, Margin: plan.margin, Workers: *workers, Progress: bar.update})
 	bar.done()
 	if err != nil {
 		return fail(1, "certify: %v", err)
@@ -360,7 +360,7 @@ func demoReadmeText(plan demoPlan, p regions.Problem, nf regions.Normal, it repo
 	line("A tour of wedgebound, written by \"wedgebound demo\". Every bound below is proved in outward-rounded interval arithmetic; the files say how.")
 	b.WriteString("\n")
 	line(fmt.Sprintf("The scenario: %s. Its vertex lies on the boundary of the half-plane, so the image half-plane {%s} of the normal form passes through the origin and the exponential profiles e^{-k xp} on quadrant III are admissible.",
-		certify.Describe(p), normalText(nf)))
+		relaxation.Describe(p), normalText(nf)))
 	if backflowEquivalent(r.Normal) {
 		b.WriteString("\n")
 		line("Since d = 0 < a, b, a squeeze maps this normal form onto that of the backflow preset (report.txt gives the map), so the problem has the backflow problem's spectrum: the certified bound is also an upper bound on the backflow constant c_bm, and the strip brackets below give lower bounds on it (A(alpha) <= c_bm for every alpha).")

@@ -1,4 +1,10 @@
-package certify
+// Package relaxation certifies halfplane-relaxation certificates: it
+// chooses the weights of the relaxation terms (Search: cutting planes on a
+// float model), covers the Mellin variable s with cells (certify.Cover),
+// encloses the extreme eigenvalue of the 2x2 symbol on each cell in
+// interval arithmetic, refines cells whose margin is thin, closes the cover
+// with tail lemmas, and assembles the certificate (Run).
+package relaxation
 
 import (
 	"errors"
@@ -10,6 +16,7 @@ import (
 	"time"
 
 	"wedgebound/certificates"
+	"wedgebound/certify"
 	"wedgebound/interval"
 	"wedgebound/regions"
 )
@@ -49,7 +56,7 @@ type Outcome struct {
 	// Candidate is the float64 estimate the search reached (not proved).
 	Candidate float64
 	// Worst is the cell where the proved margin is smallest.
-	Worst ProvedCell[interval.F]
+	Worst certify.ProvedCell[interval.F]
 	// Elapsed is the wall time of the run.
 	Elapsed time.Duration
 }
@@ -151,7 +158,7 @@ func Run(cfg Config) (*Outcome, error) {
 		return v.Lo() >= -tgt.Lo()
 	}
 	f := func(s interval.F) interval.F { return rel.Eig(s, edge) }
-	cells, err := Cover(like, f, grid, accept, CoverOptions{
+	cells, err := certify.Cover(like, f, grid, accept, certify.CoverOptions{
 		MinWidth: big.NewRat(1, 1_000_000), MaxCells: 200_000, Workers: cfg.Workers,
 		Progress: func(d, t int) { progress("cover", d, t) },
 	})
@@ -218,7 +225,7 @@ func warmUp(rel regions.Relaxation[interval.F], lo, hi float64, workers int) {
 			jobs = append(jobs, job{t, p})
 		}
 	}
-	searchParallel(len(jobs), workers, func(i int) { jobs[i].t.Enclose(interval.PointF(jobs[i].s)) })
+	certify.For(len(jobs), workers, func(i int) { jobs[i].t.Enclose(interval.PointF(jobs[i].s)) })
 }
 
 // edgeValue turns an eigenvalue enclosure into the bound it proves: for edge
@@ -331,7 +338,7 @@ func regimeGrid(lo, hi float64) []*big.Rat {
 
 // assemble builds the certificate from the proved pieces.
 func assemble(p regions.Problem, nf regions.Normal, rel regions.Relaxation[interval.F], weights []string, edge regions.Edge,
-	claim *big.Rat, cells []ProvedCell[interval.F], lo, hi float64, below, above interval.F) (*certificates.Certificate, error) {
+	claim *big.Rat, cells []certify.ProvedCell[interval.F], lo, hi float64, below, above interval.F) (*certificates.Certificate, error) {
 	num := func(n regions.Number) string { return n.String() }
 	prob := certificates.Problem{
 		Vertex: [2]string{num(p.Vertex[0]), num(p.Vertex[1])},

@@ -1,4 +1,4 @@
-package certify
+package relaxation
 
 // Candidate search in float64: choose the weights c of a relaxation so that
 // the extreme eigenvalue of the 2x2 Mellin symbol
@@ -39,11 +39,11 @@ import (
 	"runtime"
 	"sort"
 	"strconv"
-	"sync"
 
 	"gonum.org/v1/gonum/mat"
 	"gonum.org/v1/gonum/optimize/convex/lp"
 
+	"wedgebound/certify"
 	"wedgebound/interval"
 	"wedgebound/regions"
 )
@@ -308,7 +308,7 @@ func (m *symbolModel) entries(s float64) symbolEntries {
 // table computes the entries at every s, in parallel.
 func (m *symbolModel) table(ss []float64, workers int) []symbolEntries {
 	out := make([]symbolEntries, len(ss))
-	searchParallel(len(ss), workers, func(i int) { out[i] = m.entries(ss[i]) })
+	certify.For(len(ss), workers, func(i int) { out[i] = m.entries(ss[i]) })
 	return out
 }
 
@@ -497,7 +497,7 @@ func (s *searcher) evaluate(c []float64, margin float64, maxRefine int) searchEv
 			ref = append(ref, k)
 		}
 	}
-	searchParallel(len(ref), s.opt.Workers, func(r int) {
+	certify.For(len(ref), s.opt.Workers, func(r int) {
 		k := ref[r]
 		i := loc[k]
 		if e, v := s.golden(g[i-1].s, g[i+1].s, c); v < cands[k].value {
@@ -855,33 +855,4 @@ func weightDecimal(v float64, digits int) string {
 		return "0"
 	}
 	return strconv.FormatFloat(r, 'f', -1, 64)
-}
-
-// searchParallel calls f(i) for i in [0, n) on up to workers goroutines.
-func searchParallel(n, workers int, f func(i int)) {
-	if workers > n {
-		workers = n
-	}
-	if workers <= 1 {
-		for i := 0; i < n; i++ {
-			f(i)
-		}
-		return
-	}
-	var wg sync.WaitGroup
-	next := make(chan int, n)
-	for i := 0; i < n; i++ {
-		next <- i
-	}
-	close(next)
-	for w := 0; w < workers; w++ {
-		wg.Add(1)
-		go func() {
-			defer wg.Done()
-			for i := range next {
-				f(i)
-			}
-		}()
-	}
-	wg.Wait()
 }

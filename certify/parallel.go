@@ -1,4 +1,4 @@
-package strip
+package certify
 
 import (
 	"runtime"
@@ -6,9 +6,9 @@ import (
 	"sync/atomic"
 )
 
-// parallelFor runs body(i) for i in [0, n) on up to workers goroutines
+// For runs body(i) for i in [0, n) on up to workers goroutines
 // (GOMAXPROCS when workers <= 0), handing out indices one at a time.
-func parallelFor(n, workers int, body func(i int)) {
+func For(n, workers int, body func(i int)) {
 	if workers <= 0 {
 		workers = runtime.GOMAXPROCS(0)
 	}
