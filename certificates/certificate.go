@@ -41,6 +41,7 @@ type Certificate struct {
 	Relaxation *Relaxation `json:"relaxation,omitempty"`
 	Strip      *Strip      `json:"strip,omitempty"`
 	Flight     *Flight     `json:"flight,omitempty"`
+	Precession *Precession `json:"precession,omitempty"`
 	// SHA256 is the hex SHA-256 of the canonical encoding of the certificate
 	// with this field empty.
 	SHA256 string `json:"sha256"`
@@ -190,7 +191,7 @@ func (c *Certificate) validate() error {
 		return errors.New("missing tool name or version")
 	}
 	sections := 0
-	for _, set := range []bool{c.Relaxation != nil, c.Strip != nil, c.Flight != nil} {
+	for _, set := range []bool{c.Relaxation != nil, c.Strip != nil, c.Flight != nil, c.Precession != nil} {
 		if set {
 			sections++
 		}
@@ -211,6 +212,11 @@ func (c *Certificate) validate() error {
 			return errors.New("a flight certificate must hold exactly the flight section")
 		}
 		return c.Flight.validate()
+	case KindPrecession:
+		if c.Precession == nil || sections != 1 {
+			return errors.New("a precession certificate must hold exactly the precession section")
+		}
+		return c.Precession.validate()
 	}
 	return fmt.Errorf("unknown certificate kind %q", c.Kind)
 }

@@ -48,6 +48,7 @@ import (
 	// The certificate kinds this command checks, one line each (each
 	// registers itself with recheck; the names are used by the printers).
 	_ "wedgebound/certificates/recheck/flight"
+	"wedgebound/certificates/recheck/precession"
 	"wedgebound/certificates/recheck/relaxation"
 	"wedgebound/certificates/recheck/strip"
 )
@@ -235,6 +236,8 @@ func printText(w io.Writer, r fileReport) {
 		printRelaxationText(w, r, d)
 	case *strip.Detail:
 		printStripText(w, r, d)
+	case *precession.Detail:
+		printPrecessionText(w, r, d)
 	default:
 		printGenericText(w, r)
 	}
