@@ -119,7 +119,9 @@ func plotWigner(path string, wt *precession.Witness) error {
 	pl.Title.Text = fmt.Sprintf("Wigner function of the witness (residue %d, Fock n <= %d)", wt.Sector.R, plotFock)
 	pl.X.Label.Text = "x"
 	pl.Y.Label.Text = "p"
-	pl.Add(plotter.NewHeatMap(g, pal.Palette(255)))
+	hm := plotter.NewHeatMap(g, pal.Palette(255))
+	hm.Min, hm.Max = -lim, lim // zero is the middle colour
+	pl.Add(hm)
 	for k := 0; k < 3; k++ {
 		th := 2 * math.Pi * float64(k) / 3
 		// the line x cos th + p sin th = 0
