@@ -42,6 +42,7 @@ type Certificate struct {
 	Strip      *Strip      `json:"strip,omitempty"`
 	Flight     *Flight     `json:"flight,omitempty"`
 	Precession *Precession `json:"precession,omitempty"`
+	Matched    *Matched    `json:"matched,omitempty"`
 	// SHA256 is the hex SHA-256 of the canonical encoding of the certificate
 	// with this field empty.
 	SHA256 string `json:"sha256"`
@@ -191,7 +192,7 @@ func (c *Certificate) validate() error {
 		return errors.New("missing tool name or version")
 	}
 	sections := 0
-	for _, set := range []bool{c.Relaxation != nil, c.Strip != nil, c.Flight != nil, c.Precession != nil} {
+	for _, set := range []bool{c.Relaxation != nil, c.Strip != nil, c.Flight != nil, c.Precession != nil, c.Matched != nil} {
 		if set {
 			sections++
 		}
@@ -217,6 +218,11 @@ func (c *Certificate) validate() error {
 			return errors.New("a precession certificate must hold exactly the precession section")
 		}
 		return c.Precession.validate()
+	case KindMatched:
+		if c.Matched == nil || sections != 1 {
+			return errors.New("a matched certificate must hold exactly the matched section")
+		}
+		return c.Matched.validate()
 	}
 	return fmt.Errorf("unknown certificate kind %q", c.Kind)
 }

@@ -48,6 +48,7 @@ import (
 	// The certificate kinds this command checks, one line each (each
 	// registers itself with recheck; the names are used by the printers).
 	_ "wedgebound/certificates/recheck/flight"
+	_ "wedgebound/certificates/recheck/matched"
 	"wedgebound/certificates/recheck/precession"
 	"wedgebound/certificates/recheck/relaxation"
 	"wedgebound/certificates/recheck/strip"

@@ -1,0 +1,104 @@
+package matched
+
+import (
+	"fmt"
+	"math"
+	"math/big"
+	"strconv"
+	"strings"
+
+	"wedgebound/certificates"
+	"wedgebound/interval"
+)
+
+// Margins added to the recorded claims so that an independent verifier,
+// with its own (different) error terms, can prove them: cell bounds are
+// raised and the witness bound lowered by these amounts.
+const (
+	cellMargin    = 2e-7
+	witnessMargin = 1e-9
+)
+
+// Method describes the certifier's route (informational).
+const Method = "split Legendre Galerkin matrices (Gauss-Legendre entries with Bernstein-ellipse remainders), float Cholesky factors with interval residuals, Chebyshev-coefficient bound of the discarded part, monotone cells in the threshold"
+
+// Certificate returns an unsealed matched-bracket certificate.
+func (r *Result) Certificate() (*certificates.Certificate, error) {
+	av, err := r.Alpha.View(17)
+	if err != nil {
+		return nil, err
+	}
+	var units *certificates.StripUnits
+	if u := av.Units; u != nil {
+		units = &certificates.StripUnits{Mass: u.Mass, Length: u.Length, Time: u.Time}
+	}
+	m := &certificates.Matched{
+		Alpha: certificates.StripAlpha{Value: av.Value, Lower: av.Lower, Upper: av.Upper, Units: units},
+		Witness: certificates.MatchedWitness{
+			V:            exactFloat(r.Witness.V),
+			Sizes:        r.Witness.Sizes,
+			Coefficients: make([]string, len(r.Witness.Coefficients)),
+		},
+		Certifier: certificates.MatchedCertifier{Method: Method, WidthTarget: strconv.FormatFloat(r.WidthTarget, 'g', -1, 64),
+			Estimate: strconv.FormatFloat(r.Estimate, 'g', 12, 64)},
+	}
+	for i, c := range r.Witness.Coefficients {
+		m.Witness.Coefficients[i] = exactFloat(c)
+	}
+	rw := down(interval.PointF(r.Witness.Rayleigh).Sub(interval.PointF(witnessMargin)))
+	m.Witness.Rayleigh = rw
+	if strings.HasPrefix(rw, "-") {
+		m.Lower = "0"
+	} else {
+		m.Lower = rw
+	}
+	upper := 0.0
+	for _, c := range r.Cells {
+		u := interval.PointF(c.Upper).Add(interval.PointF(cellMargin))
+		upper = math.Max(upper, u.Hi())
+		m.Cells = append(m.Cells, certificates.MatchedCell{Lo: exactFloat(c.Lo), Hi: exactFloat(c.Hi), Sizes: c.Sizes, Upper: up(u)})
+	}
+	m.Upper = up(interval.PointF(upper))
+	m.Statement = fmt.Sprintf("For alpha = %s, the matched advantage M(alpha) (quantum detection probability minus that of the best classical particle "+
+		"with the same position and momentum distributions, over states confined to the strip) lies in [%s, %s]", av.Value, m.Lower, m.Upper)
+	c := &certificates.Certificate{Kind: certificates.KindMatched, Matched: m}
+	probe := *c
+	if err := certificates.Seal(&probe); err != nil {
+		return nil, err
+	}
+	b, err := certificates.Encode(&probe)
+	if err == nil {
+		_, err = certificates.Decode(b)
+	}
+	if err != nil {
+		return nil, fmt.Errorf("matched: the certificate would not be valid: %v", err)
+	}
+	return c, nil
+}
+
+// up and down write the ends of x with 12 significant digits, rounded
+// outward.
+func up(x interval.F) string {
+	_, hi := x.Endpoints()
+	return interval.DecimalUp(hi, 12)
+}
+
+func down(x interval.F) string {
+	lo, _ := x.Endpoints()
+	return interval.DecimalDown(lo, 12)
+}
+
+// exactFloat writes the float64 x exactly as a decimal.
+func exactFloat(x float64) string {
+	if x == 0 {
+		return "0"
+	}
+	s := new(big.Float).SetFloat64(x).Text('e', 800)
+	i := strings.IndexByte(s, 'e')
+	mant, exp := s[:i], s[i:]
+	mant = strings.TrimSuffix(strings.TrimRight(mant, "0"), ".")
+	if exp == "e+00" {
+		return mant
+	}
+	return mant + exp
+}
