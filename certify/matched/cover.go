@@ -47,11 +47,11 @@ type Witness struct {
 
 // Result is a certified bracket Lower <= M(alpha) <= Upper.
 type Result struct {
-	Alpha    strip.Alpha
-	Lower    float64
-	Upper    float64
-	Witness  Witness
-	Cells    []Cell
+	Alpha       strip.Alpha
+	Lower       float64
+	Upper       float64
+	Witness     Witness
+	Cells       []Cell
 	Width       float64 // Upper - Lower
 	WidthTarget float64
 	Estimate    float64 // float estimate of the largest lambda_max(S_v) seen
