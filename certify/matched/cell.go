@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"math"
 
+	"wedgebound/certify"
 	"wedgebound/certify/strip"
 	"wedgebound/interval"
 )
@@ -80,7 +81,7 @@ func buildGalerkin(alpha interval.B, a float64, bl []block, n, workers int) (*ga
 	cs := make([]interval.F, M)
 	owner := make([]int, M)
 	pa := interval.PointF(a)
-	strip.ParallelFor(M, workers, func(p int) {
+	certify.For(M, workers, func(p int) {
 		bi, i := p/n, p%n
 		s := bl[bi].s
 		z := alpha.WithPrec(nodeBits)
@@ -101,7 +102,7 @@ func buildGalerkin(alpha interval.B, a float64, bl []block, n, workers int) (*ga
 	for p := range K {
 		K[p] = make([]interval.F, M)
 	}
-	strip.ParallelFor(M, workers, func(p int) {
+	certify.For(M, workers, func(p int) {
 		for q := p; q < M; q++ {
 			var k interval.F
 			if p == q {
@@ -141,7 +142,7 @@ func buildGalerkin(alpha interval.B, a float64, bl []block, n, workers int) (*ga
 	}
 	// TT[h][p] = sum over nodes q of block(h) of K[p][q] BT[h][q].
 	TT := make([][]interval.F, g.N)
-	strip.ParallelFor(g.N, workers, func(h int) {
+	certify.For(g.N, workers, func(h int) {
 		row := make([]interval.F, M)
 		base := gb[h] * n
 		for p := 0; p < M; p++ {
@@ -157,7 +158,7 @@ func buildGalerkin(alpha interval.B, a float64, bl []block, n, workers int) (*ga
 	for i := range g.H {
 		g.H[i] = make([]interval.F, g.N)
 	}
-	strip.ParallelFor(g.N, workers, func(r int) {
+	certify.For(g.N, workers, func(r int) {
 		base := gb[r] * n
 		for c := r; c < g.N; c++ {
 			var s interval.F

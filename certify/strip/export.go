@@ -36,9 +36,6 @@ func ProveAbove(Hc []float64, N int, est, sign, scale float64, workers int) (sig
 	return psdShift(Hc, N, est, sign, scale, workers)
 }
 
-// ParallelFor runs body(i) for i in [0, n) on up to workers goroutines.
-func ParallelFor(n, workers int, body func(i int)) { parallelFor(n, workers, body) }
-
 // SincF encloses sin(z)/z for a real interval z (Taylor polynomial plus
 // Lagrange remainder; accurate for |z| < 1).
 func SincF(z interval.F) interval.F { return sincF(z) }
