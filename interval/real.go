@@ -1,17 +1,3 @@
-// Package interval provides rigorous interval arithmetic: every operation
-// returns an interval that contains the exact result for every choice of
-// arguments inside the operand intervals.
-//
-// Two real types share one interface: F, with float64 endpoints widened
-// outward by one ulp after each operation (fast, about 15 digits), and B,
-// with math/big endpoints and directed rounding at any precision from 53
-// bits upward. Algorithms are written once, as generic functions over Real,
-// and run on either type. C is the complex rectangle built on a real type.
-//
-// Domain errors never produce a silent wrong number: an operation whose
-// result is undefined or unbounded (division by an interval containing
-// zero, log of a non-positive interval, overflow) returns the whole real
-// line, which IsFinite reports and every certificate check rejects.
 package interval
 
 import "math/big"

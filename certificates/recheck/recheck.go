@@ -1,18 +1,3 @@
-// Package recheck is the core of the independent verifier: the options,
-// the kind-neutral result and failure records, the hash check, and the
-// dispatch of a certificate to the checker registered for its kind.
-//
-// Each certificate kind has its own package under this one
-// (recheck/relaxation, recheck/strip, ...) that implements Checker and
-// calls Register from its init function; a program verifies the kinds
-// whose packages it imports (cmd/wedgecheck imports every kind, one line
-// each). Numerics more than one kind may use live in recheck/checknum.
-//
-// Trusted base. The core, checknum and every kind package import only the
-// Go standard library, wedgebound/interval and wedgebound/certificates
-// (and each other's core), never the certifier's packages
-// (wedgebound/regions, wedgebound/certify) and never another kind;
-// TestTrustedBase enforces this per kind with go list -deps.
 package recheck
 
 import (
