@@ -173,10 +173,32 @@
 // A lies in [(1 + tanh(pi S))/2, 1] for s >= S and in [0, (1 - tanh(pi S))/2]
 // for s <= -S.
 //
+// Edges to many digits (SolveQuadrantEdge, quadrant_edge.go and
+// quadrant_jet.go). Write X_s, X_ss for the first and second s-derivatives.
+// With lambda = A/2 -+ R, R = sqrt(A^2/4 + beta), beta = |J|^2/(4 pi^2)
+// (D = 0), differentiating R^2 gives
+//
+//	2 R R_s = A A_s/2 + beta_s,
+//	2 R_s^2 + 2 R R_ss = A_s^2/2 + A A_ss/2 + beta_ss,
+//	A_s = (pi/2) sech^2(pi s),   A_ss = -pi^2 sech^2(pi s) tanh(pi s),
+//	beta_s = Re(conj J J_s)/(2 pi^2),   beta_ss = (|J_s|^2 + Re(conj J J_ss))/(2 pi^2),
+//	J_ss = -(1/8) [psi^(2)(3/4 + is/2) - psi^(2)(1/4 + is/2)],
+//
+// and R >= A/2 > 0, so no division is singular. For g = -+lambda: if
+// g_ss >= m > 0 on a window W (interval cells), then for s and c in W
+// g(s) >= g(c) + g_s(c)(s - c) + (m/2)(s - c)^2 >= g(c) - g_s(c)^2/(2m),
+// while inf g <= g(c); so the edge over W lies in
+// [g(c) - g_s(c)^2/(2m), g(c)], narrow once Newton's method has made g_s(c)
+// small. One interval Newton step c - g_s(c)/g_ss(X) landing inside X
+// proves a unique critical point in X (R. E. Moore, Interval Analysis,
+// 1966; common practice). Cells outside W and the tail lemma show that g
+// stays above g(c) elsewhere.
+//
 // The quadrant operator alone has inf spec = -0.15593984319124276369...
 // (at s = -0.35581989710050001273...) and sup spec = 1.0076799700700341398...
 // (at s = 0.87220286866793073874...): computed for this project with mpmath
-// from the closed forms above (seen here, not a published source); the
+// from the closed forms above (testdata/quadrant holds 1100 digits and the
+// script; seen here, not a published source); the
 // first digits agree with R. F. Werner, J. Phys. A 21 (1988) 4565 (from
 // memory). The backflow constant, estimated at 0.0384517 (A. J. Bracken and
 // G. F. Melloy, J. Phys. A 27 (1994) 2197) and 0.038452 (M. Penz, G. Gruebl,
