@@ -21,7 +21,8 @@
 // docs of wedgebound/regions and wedgebound/certify/strip); the routes it
 // takes differ where a shared route could hide a shared mistake. Per kind:
 //
-// Relaxation (recheck/relaxation; the certifier is regions and certify):
+// Relaxation (recheck/relaxation; the certifier is regions and
+// certify/relaxation):
 //
 //   - Normal form and threshold: recomputed from the problem in exact
 //     rationals by code of its own (same formulas: S = diag(m, 1)[r1 r2]^-1,
