@@ -21,7 +21,7 @@
 // # Rounding model
 //
 // F. IEEE 754 double precision computes +, -, *, / and sqrt correctly
-// rounded (IEEE 754-2008, section 5.4; common practice), so in
+// rounded (IEEE 754-2008, clause 5.4, from memory; common practice), so in
 // round-to-nearest the computed value differs from the exact one by at most
 // half an ulp. F computes each endpoint in round-to-nearest and moves it one
 // ulp outward (math.Nextafter), which encloses the exact endpoint. Exact
