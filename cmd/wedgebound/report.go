@@ -64,7 +64,15 @@ func runReport(args []string, stdout, stderr io.Writer) int {
 		return fail(2, "no certificate files given")
 	}
 	var items []reportItem
+	var brackets []bracketItem
 	for _, f := range fs.Args() {
+		if bi, ok, err := readBracketItem(f); ok || err != nil {
+			if err != nil {
+				return fail(2, "%s: %s", f, oneLineText(err.Error()))
+			}
+			brackets = append(brackets, bi)
+			continue
+		}
 		it, err := readReportItem(f)
 		if err != nil {
 			return fail(2, "%s: %s", f, oneLineText(err.Error()))
@@ -74,7 +82,18 @@ func runReport(args []string, stdout, stderr io.Writer) int {
 		}
 		items = append(items, it)
 	}
-	text := renderReport(*format, *standalone, items)
+	text := ""
+	if len(items) > 0 {
+		text = renderReport(*format, *standalone, items)
+	}
+	if len(brackets) > 0 {
+		var b strings.Builder
+		if text != "" {
+			b.WriteString("\n")
+		}
+		writeBrackets(&b, *format, brackets)
+		text += b.String()
+	}
 	if *out != "" {
 		if err := certificates.WriteAtomic(*out, []byte(text)); err != nil {
 			return fail(1, "writing %s: %v", *out, err)
