@@ -20,6 +20,7 @@ import (
 	"gonum.org/v1/plot/vg/draw"
 
 	"wedgebound/certificates"
+	"wedgebound/certify/matched"
 	"wedgebound/certify/strip"
 )
 
@@ -37,6 +38,10 @@ type sweepPoint struct {
 	alpha string
 	x     float64
 	res   *strip.Result
+	// mLower and mUpper bracket the matched advantage M(alpha) (--matched
+	// only; empty otherwise).
+	mLower, mUpper string
+	mLo, mHi       float64
 }
 
 func runSweep(args []string, stdout, stderr io.Writer) int {
@@ -48,6 +53,7 @@ func runSweep(args []string, stdout, stderr io.Writer) int {
 	csvFile := fs.String("csv", "", "write the brackets as CSV to this file")
 	svgFile := fs.String("svg", "", "write a plot of the advantage bracket against alpha to this SVG file")
 	quiet := fs.Bool("quiet", false, "no progress bar")
+	withMatched := fs.Bool("matched", false, "also bracket the matched advantage M(alpha) at each alpha (alpha <= 400; minutes per point at large alpha) and draw it")
 	boundFile := fs.String("bound-certificate", "", "a halfplane-relaxation certificate for the backflow geometry (edge lower); its claimed bound on the backflow constant is drawn as the certified upper band (read, not verified: check it with wedgecheck)")
 	var in stripInput
 	in.add(fs)
@@ -109,7 +115,26 @@ func runSweep(args []string, stdout, stderr io.Writer) int {
 			return 1
 		}
 		x, _ := strconv.ParseFloat(s, 64)
-		rows = append(rows, sweepPoint{alpha: s, x: x, res: res})
+		pt := sweepPoint{alpha: s, x: x, res: res}
+		if *withMatched {
+			mr, err := matched.Compute(a, matched.Options{})
+			var mc *certificates.Certificate
+			if err == nil {
+				mc, err = mr.Certificate()
+			}
+			if err != nil {
+				bar.done()
+				if errors.Is(err, matched.ErrRange) {
+					return fail("alpha %s: %v", s, err)
+				}
+				fmt.Fprintf(stderr, "wedgebound sweep: alpha %s: %v\n", s, err)
+				return 1
+			}
+			pt.mLower, pt.mUpper = mc.Matched.Lower, mc.Matched.Upper
+			pt.mLo, _ = strconv.ParseFloat(pt.mLower, 64)
+			pt.mHi, _ = strconv.ParseFloat(pt.mUpper, 64)
+		}
+		rows = append(rows, pt)
 	}
 	bar.update("sweep", len(alphas), len(alphas))
 	bar.done()
@@ -238,10 +263,19 @@ func bestLower(rows []sweepPoint) sweepPoint {
 func sweepCSV(rows []sweepPoint) []byte {
 	var b bytes.Buffer
 	w := csv.NewWriter(&b)
-	w.Write([]string{"alpha", "basis_size", "quadrature_nodes", "advantage_lower", "advantage_upper", "deficit_lower", "deficit_upper"})
+	head := []string{"alpha", "basis_size", "quadrature_nodes", "advantage_lower", "advantage_upper", "deficit_lower", "deficit_upper"}
+	withM := len(rows) > 0 && rows[0].mLower != ""
+	if withM {
+		head = append(head, "matched_lower", "matched_upper")
+	}
+	w.Write(head)
 	for _, r := range rows {
-		w.Write([]string{r.alpha, strconv.Itoa(r.res.BasisSize), strconv.Itoa(r.res.QuadratureNodes),
-			r.res.Advantage.Lower, r.res.Advantage.Upper, r.res.Deficit.Lower, r.res.Deficit.Upper})
+		rec := []string{r.alpha, strconv.Itoa(r.res.BasisSize), strconv.Itoa(r.res.QuadratureNodes),
+			r.res.Advantage.Lower, r.res.Advantage.Upper, r.res.Deficit.Lower, r.res.Deficit.Upper}
+		if withM {
+			rec = append(rec, r.mLower, r.mUpper)
+		}
+		w.Write(rec)
 	}
 	w.Flush()
 	return b.Bytes()
@@ -321,6 +355,28 @@ func sweepPlot(rows []sweepPoint, format string, ub *backflowBound) ([]byte, err
 		p.Add(uband, uline)
 		p.Legend.Add(fmt.Sprintf("certified c_bm <= %s (%s, read, not verified); band down to the estimate", ub.bound, filepath.Base(ub.file)), uband, uline)
 		ymax = math.Max(ymax, ub.value*1.05)
+	}
+	if rows[0].mLower != "" {
+		mlo := make(plotter.XYs, len(rows))
+		mhi := make(plotter.XYs, len(rows))
+		for i, r := range rows {
+			mlo[i] = plotter.XY{X: r.x, Y: r.mLo}
+			mhi[i] = plotter.XY{X: r.x, Y: r.mHi}
+			ymax = math.Max(ymax, r.mHi*1.05)
+		}
+		mu, mup, err := plotter.NewLinePoints(mhi)
+		if err != nil {
+			return nil, err
+		}
+		ml, mlp, err := plotter.NewLinePoints(mlo)
+		if err != nil {
+			return nil, err
+		}
+		green := color.RGBA{G: 140, B: 60, A: 255}
+		mu.Color, ml.Color, mup.Color, mlp.Color = green, green, green, green
+		mup.Shape, mlp.Shape = draw.PyramidGlyph{}, draw.CircleGlyph{}
+		p.Add(mu, ml, mup, mlp)
+		p.Legend.Add("certified bracket of the matched advantage M(alpha): upper ▲, lower ●", mu, mup)
 	}
 	p.Legend.Add("estimate 0.0384517 (Bracken & Melloy 1994, not certified)", ref)
 	p.Legend.Top = false

@@ -91,3 +91,29 @@ func TestSweepBadInput(t *testing.T) {
 		}
 	}
 }
+
+// --matched adds the matched bracket to every row; it lies at or above the
+// projectile advantage's lower end (a weaker rival: M >= A).
+func TestSweepMatched(t *testing.T) {
+	dir := t.TempDir()
+	csvPath := dir + "/s.csv"
+	code, _, errs := runCmd(sweepCmd, "--from", "0.5", "--to", "1", "--points", "2", "--matched", "--quiet", "--csv", csvPath, "--svg", dir+"/s.svg")
+	if code != 0 {
+		t.Fatalf("exit %d: %s", code, errs)
+	}
+	b, err := os.ReadFile(csvPath)
+	if err != nil {
+		t.Fatal(err)
+	}
+	lines := strings.Split(strings.TrimSpace(string(b)), "\n")
+	if len(lines) != 3 || !strings.HasSuffix(lines[0], "matched_lower,matched_upper") {
+		t.Fatalf("csv:\n%s", b)
+	}
+	for _, l := range lines[1:] {
+		f := strings.Split(l, ",")
+		aLo, mLo, mHi := ratOf(t, f[3]), ratOf(t, f[7]), ratOf(t, f[8])
+		if mHi.Cmp(aLo) < 0 || mLo.Cmp(mHi) > 0 {
+			t.Errorf("row %s", l)
+		}
+	}
+}
