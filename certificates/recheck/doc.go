@@ -71,4 +71,22 @@
 //     interval arithmetic at the verifier's own nodes; Weyl's inequality,
 //     the variational principle and 0 in the spectrum of a compact operator
 //     are the same mathematics.
+//
+// Flight (recheck/flight; the certifier is certify/flight): the reduction
+// is recomputed by composing the stage maps as affine phase-space maps in
+// exact rationals (the certifier sums time-over-mass and kick shifts in
+// closed form), every recorded number compared exactly; the embedded strip
+// section goes through the strip checker via the registry.
+//
+// Matched (recheck/matched; the certifier is certify/matched):
+//
+//   - Galerkin entries of each cell's operator C_lo - 1[x > hi] in the split
+//     basis: Clenshaw-Curtis (checknum) instead of Gauss-Legendre, with the
+//     rule's own remainder bound in each variable.
+//   - Eigenvalue proofs: its own float Cholesky factor and interval
+//     residual (the certifier uses gonum's factorisation).
+//   - Not independent: the kernel bound on Bernstein ellipses and the
+//     discarded-part lemma are the same mathematics, coded anew; the
+//     monotonicity of the cells and the reduction to S_v are taken from
+//     certify/matched/doc.go.
 package recheck

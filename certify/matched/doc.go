@@ -106,7 +106,8 @@
 // confinement or rival). Our certified values are for finite alpha and
 // increase with it: M(10) in [0.02070, 0.02094] (the best threshold is
 // v = 0, so the matched rival is no stronger than the projectile one
-// there), M(100) in [0.0924, 0.0927] (optimal threshold near v = -0.56),
+// there, up to the width of the bracket), M(100) in [0.09239, 0.09321]
+// (best threshold near v = -0.56),
 // both well below 0.126, consistent with a limit near that value; M(100)
 // is above the certified backflow upper bound 0.0407628, so the matched
 // advantage provably exceeds every projectile advantage.

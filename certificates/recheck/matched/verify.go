@@ -118,6 +118,29 @@ func nodesFor(N int, al float64) int {
 	return n + n%2
 }
 
+// buildAdaptive builds the system with a rule that grows (at most three
+// times) while the largest entry remainder exceeds 1e-11.
+func buildAdaptive(alpha interval.B, a float64, ps []piece, N int, al float64) (*system, error) {
+	n := nodesFor(N, al)
+	for try := 0; ; try++ {
+		sys, err := build(alpha, a, ps, n)
+		if err != nil {
+			return nil, err
+		}
+		worst := 0.0
+		for _, row := range sys.E {
+			for _, e := range row {
+				worst = math.Max(worst, e)
+			}
+		}
+		if worst <= 1e-11 || try == 3 {
+			return sys, nil
+		}
+		n = int(1.4*float64(n)) + 2
+		n += n % 2
+	}
+}
+
 // Check verifies a matched-bracket certificate.
 func (Checker) Check(c *certificates.Certificate, opt recheck.Options) (*recheck.Result, error) {
 	if c.Kind != certificates.KindMatched || c.Matched == nil {
@@ -153,7 +176,7 @@ func (Checker) Check(c *certificates.Certificate, opt recheck.Options) (*recheck
 	} else {
 		ps := pieces(v, w.Sizes)
 		N := w.Sizes[0] + w.Sizes[1]
-		sys, err := build(alpha, v, ps, nodesFor(N, alF))
+		sys, err := buildAdaptive(alpha, v, ps, N, alF)
 		if err != nil {
 			return nil, err
 		}
@@ -208,7 +231,7 @@ func (Checker) Check(c *certificates.Certificate, opt recheck.Options) (*recheck
 		}
 		ps := pieces(hi, cell.Sizes)
 		N := cell.Sizes[0] + cell.Sizes[1]
-		sys, err := build(alpha, lo, ps, nodesFor(N, alF))
+		sys, err := buildAdaptive(alpha, lo, ps, N, alF)
 		if err != nil {
 			return nil, err
 		}
