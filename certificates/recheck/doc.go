@@ -89,4 +89,11 @@
 //     discarded-part lemma are the same mathematics, coded anew; the
 //     monotonicity of the cells and the reduction to S_v are taken from
 //     certify/matched/doc.go.
+//
+// Precession (recheck/precession; the certifier is certify/precession): the
+// matrix elements of sgn x rebuilt from log-gamma checkpoints and exact
+// ratios, the witness's Rayleigh quotient by columns with a running error
+// bound, and the norm lemma of each residue class re-proved with its own
+// tail bounds and an interval Cholesky factorisation. Not independent: the
+// closed form of the matrix elements (derived in certify/precession/doc.go).
 package recheck
