@@ -5,8 +5,8 @@ import (
 	"testing"
 
 	"wedgebound/certificates"
-	"wedgebound/interval"
 	"wedgebound/certificates/recheck"
+	"wedgebound/interval"
 )
 
 // The big-float model agrees with the float64 one and is much tighter.
