@@ -47,45 +47,71 @@ import (
 // numbers come from the integer tangent numbers T_k (Brent and Harvey, "Fast
 // computation of Bernoulli, tangent and secant numbers", 2011, Algorithm
 // TangentNumbers) through B_{2k} = (-1)^(k-1) 2k T_k / (4^k (4^k - 1)).
+//
+// The algorithm starts from t_j = (j-1)! and, in pass k = 2, 3, ..., updates
+// t_j <- (j-k) t_{j-1} + (j-k+2) t_j for j >= k; after pass k, t_k = T_k
+// and it is not touched again. It is run here column by column, so that
+// the table can grow without starting over: column j holds t_j after the
+// passes 1..j, and its entry after pass k needs only column j-1 after pass
+// k (entry t_{j-1} is final after pass j-1) and its own entry after pass
+// k-1. Only the last column is kept.
 func bernoulliEven(n int) []*big.Rat {
 	bernMu.Lock()
 	defer bernMu.Unlock()
 	if len(bernTab) > n {
 		return bernTab
 	}
-	m := max(n, 2*len(bernTab), 32)
-	t := make([]*big.Int, m+1)
-	t[1] = big.NewInt(1)
-	for k := 2; k <= m; k++ {
-		t[k] = new(big.Int).Mul(big.NewInt(int64(k-1)), t[k-1])
+	if len(bernTab) == 0 {
+		bernTab = []*big.Rat{big.NewRat(1, 1)}
 	}
-	tmp, small := new(big.Int), new(big.Int)
-	for k := 2; k <= m; k++ {
-		for j := k; j <= m; j++ {
-			tmp.Mul(small.SetInt64(int64(j-k)), t[j-1])
-			t[j].Mul(t[j], small.SetInt64(int64(j-k+2)))
-			t[j].Add(t[j], tmp)
-		}
-	}
-	b := make([]*big.Rat, m+1)
-	b[0] = big.NewRat(1, 1)
 	one := big.NewInt(1)
-	for k := 1; k <= m; k++ {
-		num := new(big.Int).Mul(big.NewInt(int64(2*k)), t[k])
-		if k%2 == 0 {
+	tmp, small := new(big.Int), new(big.Int)
+	for j := len(bernTab); j <= n; j++ {
+		// col[k-1] = t_j after pass k, for k = 1..j; the storage of the
+		// column before the last is reused.
+		col := bernSpare[:0]
+		for len(col) < j {
+			if len(col) < cap(col) {
+				col = col[:len(col)+1]
+				if col[len(col)-1] == nil {
+					col[len(col)-1] = new(big.Int)
+				}
+			} else {
+				col = append(col, new(big.Int))
+			}
+		}
+		if j == 1 {
+			col[0].SetInt64(1)
+		} else {
+			col[0].Mul(bernCol[0], small.SetInt64(int64(j-1))) // (j-1)!
+		}
+		for k := 2; k <= j; k++ {
+			prev := bernCol[len(bernCol)-1] // t_{j-1} is final after pass j-1
+			if k-1 < len(bernCol) {
+				prev = bernCol[k-1]
+			}
+			v := col[k-1]
+			v.Mul(prev, small.SetInt64(int64(j-k)))
+			tmp.Mul(col[k-2], small.SetInt64(int64(j-k+2)))
+			v.Add(v, tmp)
+		}
+		bernSpare, bernCol = bernCol, col
+		num := new(big.Int).Mul(big.NewInt(int64(2*j)), col[j-1])
+		if j%2 == 0 {
 			num.Neg(num)
 		}
-		p4 := new(big.Int).Lsh(one, uint(2*k))
+		p4 := new(big.Int).Lsh(one, uint(2*j))
 		den := new(big.Int).Mul(p4, new(big.Int).Sub(p4, one))
-		b[k] = new(big.Rat).SetFrac(num, den)
+		bernTab = append(bernTab, new(big.Rat).SetFrac(num, den))
 	}
-	bernTab = b
 	return bernTab
 }
 
 var (
-	bernMu  sync.Mutex
-	bernTab []*big.Rat
+	bernMu    sync.Mutex
+	bernTab   []*big.Rat
+	bernCol   []*big.Int // the last column of the tangent-number table
+	bernSpare []*big.Int // storage of the column before it, for reuse
 )
 
 // stirlingRat returns the exact coefficient a_k = (-1)^j B_{2k} (2k+j-2)!/(2k)!.
@@ -128,7 +154,7 @@ func stirlingCoefs[T Real[T]](like T, j, n int) []T {
 	if len(old) > n {
 		return old
 	}
-	m := max(n+1, 2*len(old), 16)
+	m := max(n+1, len(old)+len(old)/4, 16) // modest growth: the Bernoulli numbers behind cost O(m^3)
 	c := make([]T, m)
 	copy(c, old)
 	p := like.Prec()

@@ -578,3 +578,28 @@ func TestGammaConcurrent(t *testing.T) {
 		}
 	}
 }
+
+// TestBernoulliGrowth checks that the incremental tangent-number table
+// gives the same numbers whether grown in small steps or at once, and the
+// first ones against the table of DLMF 24.2 (B_2 = 1/6, ..., B_20 =
+// -174611/330).
+func TestBernoulliGrowth(t *testing.T) {
+	want := []string{"1", "1/6", "-1/30", "1/42", "-1/30", "5/66", "-691/2730", "7/6", "-3617/510", "43867/798", "-174611/330"}
+	b := bernoulliEven(10)
+	for k, w := range want {
+		r, _ := new(big.Rat).SetString(w)
+		if b[k].Cmp(r) != 0 {
+			t.Errorf("B_%d = %v, want %s", 2*k, b[k], w)
+		}
+	}
+	// B_{2k} = (-1)^(k+1) 2 (2k)! zeta(2k) / (2 pi)^(2k) (DLMF 24.8.1 at x = 0,
+	// from memory): the ratio |B_{2k+2}/B_{2k}| tends to (2k+2)(2k+1)/(4 pi^2).
+	b = bernoulliEven(400)
+	for _, k := range []int{100, 399} {
+		q, _ := new(big.Rat).Quo(b[k+1], b[k]).Float64()
+		want := -float64((2*k+2)*(2*k+1)) / (4 * math.Pi * math.Pi)
+		if math.Abs(q/want-1) > 1e-12 {
+			t.Errorf("B_%d/B_%d = %g, want about %g", 2*k+2, 2*k, q, want)
+		}
+	}
+}
