@@ -6,6 +6,7 @@ package matched_test
 
 import (
 	"math/big"
+	"os"
 	"strings"
 	"sync"
 	"testing"
@@ -118,4 +119,25 @@ func mustEncode(t *testing.T, c *certificates.Certificate) []byte {
 		t.Fatal(err)
 	}
 	return b
+}
+
+// With WEDGEBOUND_SLOW=1: the shipped alpha = 100 certificate passes, and
+// its lower end is above the shipped backflow upper bound 0.0407628 (the
+// alpha = 10 one is checked with every shipped certificate by
+// cmd/wedgecheck).
+func TestShippedMatched(t *testing.T) {
+	if os.Getenv("WEDGEBOUND_SLOW") == "" {
+		t.Skip("slow: set WEDGEBOUND_SLOW=1")
+	}
+	const f = "../../../testdata/matched/alpha100.json"
+	c, err := certificates.ReadFile(f)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if r := verify(t, c); !r.Pass {
+		t.Errorf("%s: %+v", f, r.Failures)
+	}
+	if lo, _ := new(big.Rat).SetString(c.Matched.Lower); lo.Cmp(big.NewRat(407628, 10000000)) <= 0 {
+		t.Errorf("%s: lower end %s is not above 0.0407628", f, c.Matched.Lower)
+	}
 }
