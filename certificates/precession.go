@@ -87,10 +87,10 @@ type PrecessionErrors struct {
 	MatVecError string `json:"matvec_error"`
 }
 
-// PrecessionCertifier is the certifier's account of its work (informational).
+// PrecessionCertifier is the certifier's account of its work
+// (informational).
 type PrecessionCertifier struct {
-	Method  string `json:"method"`
-	Seconds string `json:"seconds"`
+	Method string `json:"method"`
 }
 
 func (p *Precession) validate() error {

@@ -4,6 +4,7 @@ import (
 	"errors"
 	"math"
 
+	"wedgebound/certify"
 	"wedgebound/interval"
 )
 
@@ -14,8 +15,9 @@ type Witness struct {
 	X, Y   []float64
 	// Rayleigh encloses <psi|Q3|psi>/<psi|psi>.
 	Rayleigh interval.F
-	// MatVecError is the largest error bound of one entry of B Y (before the
-	// factor alpha_j/3), from rounding and from the enclosures of the entries.
+	// MatVecError bounds (approximately, informational) the part of the
+	// Rayleigh quotient's enclosure width due to rounding in B Y and to the
+	// enclosures of the matrix entries.
 	MatVecError float64
 }
 
@@ -70,10 +72,10 @@ func (s Sector) signedRow(t *Table, y []float64) ([]float64, float64) {
 // computed in float64 and bounded by the a priori error of a float dot
 // product: |fl - exact| <= (gamma_n + 3u) S/(1 - gamma_n) + rel S (1+4u)/(1-gamma_n),
 // S the float sum of |m_b/(2d+1)|, gamma_n = n u/(1 - n u), u = 2^-53.
-func (s Sector) MatVec(t *Table, y []float64, rows, workers int) ([]interval.F, float64, error) {
+func (s Sector) MatVec(t *Table, y []float64, rows, workers int) ([]interval.F, []float64, error) {
 	m, rel := s.signedRow(t, y)
 	if math.IsInf(rel, 0) {
-		return nil, 0, errors.New("an entry of the witness is not enclosed")
+		return nil, nil, errors.New("an entry of the witness is not enclosed")
 	}
 	n := len(y)
 	off := rows + s.P + 1
@@ -86,7 +88,7 @@ func (s Sector) MatVec(t *Table, y []float64, rows, workers int) ([]interval.F, 
 	out := make([]interval.F, rows)
 	errs := make([]float64, rows)
 	third := interval.PointF(1).Quo(interval.PointF(3))
-	parallelFor(rows, workers, func(a int) {
+	certify.For(rows, workers, func(a int) {
 		base := -a - s.P + off
 		r := recip[base : base+n]
 		sum, abs := 0.0, 0.0
@@ -104,11 +106,7 @@ func (s Sector) MatVec(t *Table, y []float64, rows, workers int) ([]interval.F, 
 		}
 		out[a] = v
 	})
-	worst := 0.0
-	for _, e := range errs {
-		worst = math.Max(worst, e)
-	}
-	return out, worst, nil
+	return out, errs, nil
 }
 
 // Prove builds the even half of the witness from B y and encloses its
@@ -136,7 +134,7 @@ func (s Sector) Prove(t *Table, y []float64, rows, workers int) (*Witness, error
 }
 
 // Rayleigh encloses 1/2 + <x, B y>/(|x|^2+|y|^2) given enclosures of B y.
-func (s Sector) Rayleigh(t *Table, x, y []float64, by []interval.F, e float64) (*Witness, error) {
+func (s Sector) Rayleigh(t *Table, x, y []float64, by []interval.F, errs []float64) (*Witness, error) {
 	num := interval.PointF(0)
 	for a, xa := range x {
 		num = num.Add(by[a].Mul(interval.PointF(xa)))
@@ -149,6 +147,11 @@ func (s Sector) Rayleigh(t *Table, x, y []float64, by []interval.F, e float64) (
 		den = den.Add(interval.PointF(v).Sqr())
 	}
 	r := interval.PointF(0.5).Add(num.Quo(den))
+	e := 0.0
+	for a, xa := range x {
+		e += math.Abs(xa) * t.Af[3*a+s.J0] / 3 * errs[a]
+	}
+	e = e / den.Lo() * (1 + 1e-6)
 	if !r.IsFinite() {
 		return nil, errors.New("the Rayleigh quotient is not enclosed")
 	}

@@ -7,6 +7,7 @@ import (
 
 	"gonum.org/v1/gonum/mat"
 
+	"wedgebound/certify"
 	"wedgebound/interval"
 )
 
@@ -186,7 +187,7 @@ func (s Sector) ProveUpper(t *Table, A, L int, lambda float64, workers int) (*Up
 	}
 	sq := Sqrt2OverPi()
 	rows := make([][]interval.F, A)
-	parallelFor(A, workers, func(a int) {
+	certify.For(A, workers, func(a int) {
 		rows[a] = make([]interval.F, L)
 		for b := 0; b < L; b++ {
 			rows[a][b] = t.M(a+s.P, b, sq)
@@ -203,7 +204,7 @@ func (s Sector) ProveUpper(t *Table, A, L int, lambda float64, workers int) (*Up
 		H[a] = make([]interval.F, A)
 	}
 	tailMax := 0.0
-	parallelFor(A, workers, func(a int) {
+	certify.For(A, workers, func(a int) {
 		for c := a; c < A; c++ {
 			sum := interval.PointF(0)
 			ra, rc := rows[a], rows[c]

@@ -63,6 +63,20 @@ func runReport(args []string, stdout, stderr io.Writer) int {
 	if fs.NArg() == 0 {
 		return fail(2, "no certificate files given")
 	}
+	if precs, ok, err := readPrecessionItems(fs.Args()); ok {
+		if err != nil {
+			return fail(2, "%s", oneLineText(err.Error()))
+		}
+		text := renderPrecessionReport(*format, *standalone, precs)
+		if *out != "" {
+			if err := certificates.WriteAtomic(*out, []byte(text)); err != nil {
+				return fail(1, "writing %s: %v", *out, err)
+			}
+			return 0
+		}
+		io.WriteString(stdout, text)
+		return 0
+	}
 	var items []reportItem
 	var brackets []bracketItem
 	for _, f := range fs.Args() {

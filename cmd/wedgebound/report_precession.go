@@ -5,12 +5,14 @@ import (
 	"io"
 	"math"
 	"math/big"
+	"strings"
 
 	"gonum.org/v1/plot"
 	"gonum.org/v1/plot/palette/moreland"
 	"gonum.org/v1/plot/plotter"
 	"gonum.org/v1/plot/vg"
 
+	"wedgebound/certificates"
 	"wedgebound/certify/precession"
 	"wedgebound/interval"
 )
@@ -130,4 +132,89 @@ func plotWigner(path string, wt *precession.Witness) error {
 	}
 	pl.X.Min, pl.X.Max, pl.Y.Min, pl.Y.Max = -half, half, -half, half
 	return pl.Save(6*vg.Inch, 6*vg.Inch, path)
+}
+
+// precessionItem is one precession-bracket certificate to report on.
+type precessionItem struct {
+	file string
+	cert *certificates.Certificate
+}
+
+// readPrecessionItems reads the files when the first is a precession-bracket
+// certificate (ok true); then all must be.
+func readPrecessionItems(paths []string) ([]precessionItem, bool, error) {
+	first, err := certificates.ReadFile(paths[0])
+	if err != nil || first.Kind != certificates.KindPrecession {
+		return nil, false, nil
+	}
+	items := []precessionItem{{paths[0], first}}
+	for _, p := range paths[1:] {
+		c, err := certificates.ReadFile(p)
+		if err != nil {
+			return nil, true, fmt.Errorf("%s: %v", p, err)
+		}
+		if c.Kind != certificates.KindPrecession {
+			return nil, true, fmt.Errorf("%s: kind %q cannot be reported together with %q certificates", p, c.Kind, certificates.KindPrecession)
+		}
+		items = append(items, precessionItem{p, c})
+	}
+	return items, true, nil
+}
+
+// renderPrecessionReport formats precession certificates as text, a
+// Markdown table or a LaTeX tabular.
+func renderPrecessionReport(format string, standalone bool, items []precessionItem) string {
+	var b strings.Builder
+	switch format {
+	case formatMarkdown:
+		b.WriteString("| Certificate | P3 lower | P3 upper | Width | Witness states | Lemma (cutoff, terms) | SHA-256 |\n")
+		b.WriteString("|---|---|---|---|---|---|---|\n")
+		for _, it := range items {
+			p := it.cert.Precession
+			fmt.Fprintf(&b, "| %s | %s | %s | %s | %d | %d, %d | `%s` |\n", mdEscape(it.file), p.Lower, p.Upper, precessionWidth(p),
+				len(p.Witness.Even)+len(p.Witness.Odd), p.Sectors[0].Cutoff, p.Sectors[0].SumLength, it.cert.SHA256[:12])
+		}
+	case formatLaTeX:
+		if standalone {
+			b.WriteString("\\documentclass{article}\n\\begin{document}\n\\begin{table}[ht]\n\\centering\n")
+		}
+		b.WriteString("\\begin{tabular}{llllll}\n\\hline\n")
+		b.WriteString("$P_3 \\ge$ & $P_3 \\le$ & Width & Witness states & Lemma (cutoff, terms) & SHA-256 \\\\\n\\hline\n")
+		for _, it := range items {
+			p := it.cert.Precession
+			fmt.Fprintf(&b, "%s & %s & %s & %d & %d, %d & \\texttt{%s} \\\\\n\\hline\n", p.Lower, p.Upper, precessionWidth(p),
+				len(p.Witness.Even)+len(p.Witness.Odd), p.Sectors[0].Cutoff, p.Sectors[0].SumLength, it.cert.SHA256[:12])
+		}
+		b.WriteString("\\end{tabular}\n")
+		if standalone {
+			b.WriteString("\\caption{Certified brackets of $P_3 = \\sup\\sigma(Q_3)$, $Q_3 = \\frac13\\sum_{k=0}^{2}\\Theta(x\\cos\\frac{2\\pi k}{3} + p\\sin\\frac{2\\pi k}{3})$ " +
+				"($\\hbar = m = \\omega = 1$). Lower bounds are Rayleigh quotients of witness states; upper bounds come from a norm lemma in each residue class of the Fock index mod 3. " +
+				"Every bracket can be re-checked with \\texttt{wedgecheck}.}\n\\end{table}\n\\end{document}\n")
+		}
+	default:
+		for i, it := range items {
+			if i > 0 {
+				b.WriteString("\n")
+			}
+			p := it.cert.Precession
+			fmt.Fprintf(&b, "%s (sha256 %s...)\n", it.file, it.cert.SHA256[:12])
+			fmt.Fprintf(&b, "  problem: %s\n", p.Problem)
+			fmt.Fprintf(&b, "  proved:  %s <= P3 <= %s (width %s)\n", p.Lower, p.Upper, precessionWidth(p))
+			fmt.Fprintf(&b, "  lower:   witness of %d Fock states in residue %d, <Q3> in [%s, %s]\n",
+				len(p.Witness.Even)+len(p.Witness.Odd), p.Witness.Residue, p.Witness.Rayleigh.Lower, p.Witness.Rayleigh.Upper)
+			for _, s := range p.Sectors {
+				fmt.Fprintf(&b, "  upper:   residue %d: sup spec <= %s (cutoff %d, %d exact terms, lambda %s, epsilon %s)\n",
+					s.Residue, s.NormBound, s.Cutoff, s.SumLength, s.Lambda, s.Epsilon)
+			}
+			fmt.Fprintf(&b, "  errors:  tail of H <= %s, lemma margin >= %s, matrix-vector rounding <= %s\n", p.Errors.TailH, p.Errors.Margin, p.Errors.MatVecError)
+		}
+	}
+	return b.String()
+}
+
+// precessionWidth is Upper - Lower, rounded up to 3 significant digits.
+func precessionWidth(p *certificates.Precession) string {
+	w := new(big.Rat).Sub(rat(p.Upper), rat(p.Lower))
+	f, _ := new(big.Float).SetPrec(200).SetRat(w).Float64()
+	return interval.DecimalUp(new(big.Float).SetFloat64(f*(1+1e-15)), 3)
 }
