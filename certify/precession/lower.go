@@ -52,6 +52,9 @@ func (s Sector) signedRow(t *Table, y []float64) ([]float64, float64) {
 	m := make([]float64, len(y))
 	rel := 0.0
 	for b, yb := range y {
+		if yb == 0 {
+			continue // m[b] = 0 exactly
+		}
 		v := sq.Mul(t.Beta2(3*b + s.K0).Sqrt()).Mul(interval.PointF(yb))
 		if b%2 != 0 {
 			v = v.Neg()

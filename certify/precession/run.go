@@ -14,8 +14,8 @@ import (
 // Defaults of the work options.
 const (
 	DefaultCutoff  = 24
-	DefaultLength  = 4000
-	DefaultWitness = 30000
+	DefaultLength  = 12000
+	DefaultWitness = 60000
 )
 
 // Options set the work spent.
@@ -81,14 +81,27 @@ func Run(o Options) (*Result, error) {
 		if err != nil {
 			return nil, fmt.Errorf("residue %d: %v", s.R, err)
 		}
+		// The float lambda is raised by a relative margin until the proof
+		// goes through (the enclosures' widths and the tails need some room),
+		// then the margin is narrowed by bisection.
 		var p *UpperProof
-		for rel := 1e-9; ; rel *= 4 {
+		failed, rel := 0.0, 1e-9
+		for ; ; rel *= 2 {
 			p, err = s.ProveUpper(t, o.Cutoff, o.Length, lam*(1+rel), o.Workers)
 			if err == nil {
 				break
 			}
 			if rel > 0.25 {
 				return nil, fmt.Errorf("residue %d: %v", s.R, err)
+			}
+			failed = rel
+		}
+		for k := 0; k < 5 && failed > 0; k++ {
+			mid := (failed + rel) / 2
+			if q, err := s.ProveUpper(t, o.Cutoff, o.Length, lam*(1+mid), o.Workers); err == nil {
+				p, rel = q, mid
+			} else {
+				failed = mid
 			}
 		}
 		res.Proofs[i] = p

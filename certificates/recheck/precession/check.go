@@ -17,6 +17,7 @@ import (
 	"sync/atomic"
 
 	"wedgebound/certificates"
+	"wedgebound/certificates/recheck/checknum"
 	"wedgebound/interval"
 )
 
@@ -167,25 +168,6 @@ func newTable(n int) *table {
 // beta encloses sqrt((2k+1) alpha_k^2).
 func (t *table) beta(k int) interval.F { return t.a2[k].Mul(interval.PointF(float64(2*k + 1))).Sqrt() }
 
-func parallel(n, workers int, body func(i int)) {
-	var wg sync.WaitGroup
-	var next atomic.Int64
-	for w := 0; w < min(workers, n); w++ {
-		wg.Add(1)
-		go func() {
-			defer wg.Done()
-			for {
-				i := int(next.Add(1)) - 1
-				if i >= n {
-					return
-				}
-				body(i)
-			}
-		}()
-	}
-	wg.Wait()
-}
-
 const unit = 1.0 / (1 << 53)
 
 // rayleigh encloses 1/2 + <x, B y>/(|x|^2 + |y|^2) for the witness, by
@@ -228,7 +210,7 @@ func rayleigh(t *table, c class, evenS, oddS []string, workers int) (interval.F,
 		recip[i] = 1 / float64(2*(i-off)+1)
 	}
 	col := make([]interval.F, ny)
-	parallel(ny, workers, func(b int) {
+	checknum.For(ny, workers, func(b int) {
 		// d = b - a - p runs from b - p down to b - p - nx + 1.
 		s, sumS, sumP, sumR := 0.0, 0.0, 0.0, 0.0
 		for a := 0; a < nx; a++ {

@@ -5,6 +5,7 @@ import (
 	"fmt"
 
 	"wedgebound/certificates"
+	"wedgebound/certificates/recheck/checknum"
 	"wedgebound/interval"
 )
 
@@ -80,7 +81,7 @@ func lemma(t *table, c class, s certificates.PrecessionSector, workers int) (int
 	sq := z.Int(2).Quo(z.Pi()).Sqrt()
 	rows := make([][]interval.F, A)
 	tau := make([]float64, A)
-	parallel(A, workers, func(a int) {
+	checknum.For(A, workers, func(a int) {
 		i := a + c.p
 		r := make([]interval.F, L)
 		norm := z.Int(0)
@@ -99,7 +100,7 @@ func lemma(t *table, c class, s certificates.PrecessionSector, workers int) (int
 	for a := range H {
 		H[a] = make([]interval.F, A)
 	}
-	parallel(A, workers, func(a int) {
+	checknum.For(A, workers, func(a int) {
 		for cc := 0; cc <= a; cc++ {
 			sum := z.Int(0)
 			for b := 0; b < L; b++ {
