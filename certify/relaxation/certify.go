@@ -260,10 +260,13 @@ func scanCandidate(rel regions.Relaxation[interval.F], e regions.Edge, workers i
 		return best
 	}
 	init := make([]float64, len(rel.Weights))
+	wb := 50.0
 	for i, w := range rel.Weights {
 		init[i] = (w.Lo() + w.Hi()) / 2
+		wb = math.Max(wb, 2*math.Abs(init[i]))
 	}
-	res, err := Search(rel.Terms, e, SearchOptions{MaxIter: -1, Initial: init, Digits: 17, Workers: workers})
+	// The box only has to contain the given weights (no LP round runs).
+	res, err := Search(rel.Terms, e, SearchOptions{MaxIter: -1, Initial: init, Digits: 17, WeightBound: wb, Workers: workers})
 	if err != nil {
 		return math.NaN()
 	}
