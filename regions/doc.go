@@ -350,6 +350,18 @@
 // at |s| of a few thousand. Every value lies above the published estimates
 // of the backflow constant (0.03845), as it must.
 //
+// Not done yet. (1) Vertex inside the half-plane (d > 0): every admissible
+// profile vanishes on (0, u0) with u0 > 0, so its Fourier transform carries
+// the factor e^{i u0 w} and M_{+-} becomes an oscillatory integral of the
+// kind of the edge terms E(c, s), K(c, s) (a shifted or cut-off exponential
+// e^{-k (xp - u0)} on xp >= u0 has the same jump at u0 as a band). The
+// certifier side exists (bands, hats); the verifier needs its own route for
+// these integrals (e.g. the tau-form turned to tau = 1 + i y, where
+// e^{2 i c tau} decays, which loses a factor e^{pi |s|/2} to cancellation
+// for s < 0 and so needs its own saddle-point path there) before such
+// certificates can pass. (2) Relaxations beyond squeeze invariance (symbols
+// supported off H that are not functions of xp) were not attempted.
+//
 // # Quadrature
 //
 // Every integral on a finite path is a sum of Gauss-Legendre panels
