@@ -38,6 +38,13 @@ type Config struct {
 	// Workers is the number of goroutines (0 means GOMAXPROCS); the
 	// certificate does not depend on it.
 	Workers int
+	// Prec is the working precision of the cover in bits: 0 or 53 means
+	// float64 intervals (F), anything in 54..65536 big.Float intervals (B)
+	// at that precision. The weight search and the tail range stay in
+	// float64 (they only propose); every enclosure of the cover, the tails
+	// and the rounding budget is computed at Prec, which the certificate
+	// records as precision_bits.
+	Prec uint
 	// Shard and Shards split the cover: the run proves only the contiguous
 	// part Shard (0-based) of Shards of the initial cells and marks the
 	// certificate as partial (certificates.Merge joins the parts). Shards 0
@@ -66,6 +73,17 @@ type Outcome struct {
 // bound that is not proved: the claim is the worst proved value over all
 // cells and tails, rounded up.
 func Run(cfg Config) (*Outcome, error) {
+	switch {
+	case cfg.Prec == 0 || cfg.Prec == 53:
+		return run(cfg, interval.PointF(0))
+	case cfg.Prec < 53 || cfg.Prec > 65536:
+		return nil, fmt.Errorf("precision %d bits is outside 53..65536", cfg.Prec)
+	}
+	return run(cfg, interval.NewB(0, cfg.Prec))
+}
+
+// run is Run with the cover's enclosures in the interval type of like.
+func run[T interval.Real[T]](cfg Config, prec T) (*Outcome, error) {
 	start := time.Now()
 	nf, err := regions.Normalize(cfg.Problem)
 	if err != nil {
@@ -121,6 +139,20 @@ func Run(cfg Config) (*Outcome, error) {
 		w[i], _ = like.Decimal(s)
 	}
 	rel := regions.Relaxation[interval.F]{Terms: terms, Weights: w}
+	// The same relaxation at the cover's precision.
+	relT := regions.Relaxation[T]{}
+	for i, t := range terms {
+		tt, err := regions.NewTerm(prec, t.Kind(), t.Params())
+		if err != nil {
+			return nil, err
+		}
+		wt, err := prec.Decimal(weights[i])
+		if err != nil {
+			return nil, fmt.Errorf("weight %d: %v", i, err)
+		}
+		relT.Terms = append(relT.Terms, tt)
+		relT.Weights = append(relT.Weights, wt)
+	}
 	if math.IsNaN(candidate) {
 		// Weights given (or no terms): estimate the candidate from a scan.
 		candidate = scanCandidate(rel, edge, cfg.Workers)
@@ -137,7 +169,7 @@ func Run(cfg Config) (*Outcome, error) {
 	if err != nil {
 		return nil, err
 	}
-	warmUp(rel, lo, hi, cfg.Workers)
+	warmUp(relT, lo, hi, cfg.Workers)
 	grid := regimeGrid(lo, hi)
 	if cfg.Shards > 0 {
 		if cfg.Shard < 0 || cfg.Shard >= cfg.Shards || cfg.Shards > len(grid)-1 {
@@ -147,18 +179,18 @@ func Run(cfg Config) (*Outcome, error) {
 		a, b := cfg.Shard*n/cfg.Shards, (cfg.Shard+1)*n/cfg.Shards
 		grid = grid[a : b+1]
 	}
-	tgt := like.Float(target)
-	accept := func(v interval.F) bool {
+	tgt := prec.Float(target)
+	accept := func(v T) bool {
 		if !v.IsFinite() {
 			return false
 		}
 		if edge == regions.Upper {
-			return v.Hi() <= tgt.Lo()
+			return !tgt.Less(interval.Upper(v))
 		}
-		return v.Lo() >= -tgt.Lo()
+		return !interval.Lower(v).Less(tgt.Neg())
 	}
-	f := func(s interval.F) interval.F { return rel.Eig(s, edge) }
-	cells, err := certify.Cover(like, f, grid, accept, certify.CoverOptions{
+	f := func(s T) T { return relT.Eig(s, edge) }
+	cells, err := certify.Cover(prec, f, grid, accept, certify.CoverOptions{
 		MinWidth: big.NewRat(1, 1_000_000), MaxCells: 200_000, Workers: cfg.Workers,
 		Progress: func(d, t int) { progress("cover", d, t) },
 	})
@@ -166,10 +198,10 @@ func Run(cfg Config) (*Outcome, error) {
 		return nil, err
 	}
 	// The proved value: worst over cells and tails.
-	sLo := like.Float(lo)
-	sHi := like.Float(hi)
-	below := rel.Tail(sLo, -1).Eig(edge)
-	above := rel.Tail(sHi, 1).Eig(edge)
+	sLo := prec.Float(lo)
+	sHi := prec.Float(hi)
+	below := relT.Tail(sLo, -1).Eig(edge)
+	above := relT.Tail(sHi, 1).Eig(edge)
 	worst := cells[0]
 	proved := edgeValue(below, edge)
 	proved = math.Max(proved, edgeValue(above, edge))
@@ -183,8 +215,9 @@ func Run(cfg Config) (*Outcome, error) {
 		proved = math.Max(proved, edgeValue(c.Value, edge))
 	}
 	claim := roundUp(proved, 6)
-	out := &Outcome{Bound: claim, Candidate: candidate, Worst: worst}
-	cert, err := assemble(cfg.Problem, nf, rel, weights, edge, claim, cells, lo, hi, below, above)
+	out := &Outcome{Bound: claim, Candidate: candidate, Worst: certify.ProvedCell[interval.F]{
+		Lo: worst.Lo, Hi: worst.Hi, Value: interval.F{}.Between(worst.Value.Endpoints())}}
+	cert, err := assemble(cfg.Problem, nf, relT, weights, edge, claim, cells, lo, hi, below, above)
 	if err != nil {
 		return nil, err
 	}
@@ -202,7 +235,7 @@ func Run(cfg Config) (*Outcome, error) {
 // warmUp builds every term's quadrature set-up for [-lo, hi] in parallel
 // (each term builds one s-range at a time, which would otherwise serialise
 // the first cells of the cover). It only affects speed.
-func warmUp(rel regions.Relaxation[interval.F], lo, hi float64, workers int) {
+func warmUp[T interval.Real[T]](rel regions.Relaxation[T], lo, hi float64, workers int) {
 	if workers <= 0 {
 		workers = runtime.GOMAXPROCS(0)
 	}
@@ -216,7 +249,7 @@ func warmUp(rel regions.Relaxation[interval.F], lo, hi float64, workers int) {
 		}
 	}
 	type job struct {
-		t regions.Term[interval.F]
+		t regions.Term[T]
 		s float64
 	}
 	var jobs []job
@@ -225,13 +258,17 @@ func warmUp(rel regions.Relaxation[interval.F], lo, hi float64, workers int) {
 			jobs = append(jobs, job{t, p})
 		}
 	}
-	certify.For(len(jobs), workers, func(i int) { jobs[i].t.Enclose(interval.PointF(jobs[i].s)) })
+	if len(rel.Weights) == 0 {
+		return
+	}
+	like := rel.Weights[0]
+	certify.For(len(jobs), workers, func(i int) { jobs[i].t.Enclose(like.Float(jobs[i].s)) })
 }
 
 // edgeValue turns an eigenvalue enclosure into the bound it proves: for edge
 // lower -lambda_min <= -lo, for edge upper lambda_max <= hi. The float64
-// endpoints of F are exact, so no rounding happens here.
-func edgeValue(v interval.F, e regions.Edge) float64 {
+// endpoints of F are exact; those of B are rounded outward to float64.
+func edgeValue[T interval.Real[T]](v T, e regions.Edge) float64 {
 	if !v.IsFinite() {
 		return math.Inf(1)
 	}
@@ -340,8 +377,9 @@ func regimeGrid(lo, hi float64) []*big.Rat {
 }
 
 // assemble builds the certificate from the proved pieces.
-func assemble(p regions.Problem, nf regions.Normal, rel regions.Relaxation[interval.F], weights []string, edge regions.Edge,
-	claim *big.Rat, cells []certify.ProvedCell[interval.F], lo, hi float64, below, above interval.F) (*certificates.Certificate, error) {
+func assemble[T interval.Real[T]](p regions.Problem, nf regions.Normal, rel regions.Relaxation[T], weights []string, edge regions.Edge,
+	claim *big.Rat, cells []certify.ProvedCell[T], lo, hi float64, below, above T) (*certificates.Certificate, error) {
+	like := below
 	num := func(n regions.Number) string { return n.String() }
 	prob := certificates.Problem{
 		Vertex: [2]string{num(p.Vertex[0]), num(p.Vertex[1])},
@@ -362,7 +400,7 @@ func assemble(p regions.Problem, nf regions.Normal, rel regions.Relaxation[inter
 			Map: [4]string{regions.RatString(nf.S[0]), regions.RatString(nf.S[1]), regions.RatString(nf.S[2]), regions.RatString(nf.S[3])},
 			A:   regions.RatString(nf.A), B: regions.RatString(nf.B), D: regions.RatString(nf.D), Threshold: thr,
 		},
-		PrecisionBits: 53,
+		PrecisionBits: int(like.Prec()),
 	}
 	var quad, trunc float64
 	for i, t := range rel.Terms {
@@ -381,8 +419,8 @@ func assemble(p regions.Problem, nf regions.Normal, rel regions.Relaxation[inter
 		r.Cover = append(r.Cover, certificates.Cell{Lo: regions.RatString(c.Lo), Hi: regions.RatString(c.Hi), EigLower: l, EigUpper: h})
 	}
 	// Rounding: the width of a point enclosure at the worst cell's midpoint.
-	tailB := rel.Tail(interval.PointF(lo), -1).B.Re.Hi()
-	tailB = math.Max(tailB, rel.Tail(interval.PointF(hi), 1).B.Re.Hi())
+	tailB := rel.Tail(like.Float(lo), -1).B.Re.Hi()
+	tailB = math.Max(tailB, rel.Tail(like.Float(hi), 1).B.Re.Hi())
 	bl, bh := tailBounds(below, above, edge)
 	r.Below = certificates.Tail{From: r.Cover[0].Lo, Bound: bl, Lemma: "quadrant-exp-tail-v1"}
 	r.Above = certificates.Tail{From: r.Cover[len(r.Cover)-1].Hi, Bound: bh, Lemma: "quadrant-exp-tail-v1"}
@@ -395,7 +433,7 @@ func assemble(p regions.Problem, nf regions.Normal, rel regions.Relaxation[inter
 	m := new(big.Rat).Add(mid.Lo, mid.Hi)
 	m.Quo(m, big.NewRat(2, 1))
 	mf, _ := m.Float64()
-	rounding = rel.Enclose(interval.PointF(mf)).Eig(edge).Rad() * 2
+	rounding = rel.Enclose(like.Float(mf)).Eig(edge).Rad() * 2
 	up := func(v float64) string { return interval.DecimalUp(new(big.Float).SetFloat64(v), 3) }
 	r.Budget = certificates.Budget{Quadrature: up(quad), Truncation: up(trunc), Tails: up(tailB), Rounding: up(rounding)}
 	return &certificates.Certificate{Kind: certificates.KindRelaxation, Relaxation: r}, nil
@@ -404,8 +442,8 @@ func assemble(p regions.Problem, nf regions.Normal, rel regions.Relaxation[inter
 // tailBounds formats the tail conclusions as decimal strings rounded to the
 // safe side: lower bounds of lambda_min (edge lower) or upper bounds of
 // lambda_max (edge upper).
-func tailBounds(below, above interval.F, e regions.Edge) (string, string) {
-	f := func(v interval.F) string {
+func tailBounds[T interval.Real[T]](below, above T, e regions.Edge) (string, string) {
+	f := func(v T) string {
 		lo, hi := v.Endpoints()
 		if e == regions.Upper {
 			return interval.DecimalUp(hi, 17)

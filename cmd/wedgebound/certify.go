@@ -28,7 +28,7 @@ func runCertify(args []string, stdout, stderr io.Writer) int {
 	weights := fs.String("weights", "", "comma-separated exact weights for the profiles (default: searched)")
 	weightBound := fs.Float64("weight-bound", 0, "bound on the searched weights (default max(50, k_max/15))")
 	margin := fs.Float64("margin", 2e-5, "how far above the float candidate the cover aims")
-	prec := fs.Int("prec", 53, "working precision in bits (53: float64 intervals)")
+	prec := fs.Int("prec", 53, "working precision of the cover in bits (53: float64 intervals; 54..65536: big.Float intervals, slower)")
 	workers := fs.Int("workers", 0, "goroutines (default: all cores); the certificate does not depend on it")
 	shard := fs.String("shard", "", "prove only part I of N of the cover (I/N, 1 <= I <= N) and write a partial certificate for \"wedgebound merge\"")
 	asJSON := fs.Bool("json", false, "print a JSON summary with the proved bound in the field bound")
@@ -56,8 +56,8 @@ func runCertify(args []string, stdout, stderr io.Writer) int {
 	if *out == "" {
 		return fail("--out FILE is required")
 	}
-	if *prec != 53 {
-		return fail("--prec %d: this version certifies in float64 interval arithmetic only (--prec 53)", *prec)
+	if *prec < 53 || *prec > 65536 {
+		return fail("--prec %d is outside 53..65536", *prec)
 	}
 	if *margin <= 0 || *margin > 1 {
 		return fail("--margin must lie in (0, 1]")
@@ -77,7 +77,7 @@ func runCertify(args []string, stdout, stderr io.Writer) int {
 			return fail("%s: %v", *problemFile, err)
 		}
 	}
-	cfg := relaxation.Config{Problem: p, WeightBound: *weightBound, Margin: *margin, Workers: *workers}
+	cfg := relaxation.Config{Problem: p, WeightBound: *weightBound, Margin: *margin, Workers: *workers, Prec: uint(*prec)}
 	if s := strings.TrimSpace(*exps); s != "" && s != "none" {
 		cfg.Ks = splitList(s)
 	}

@@ -254,16 +254,12 @@ func (v *verifier) checkRecorded() {
 	}
 }
 
-// modelB returns the high-precision model, built on first use.
+// modelB returns the high-precision model, built on first use, at the
+// certificate's recorded precision_bits or higher (at least 106 bits):
+// pieces that float64 cannot decide are re-checked there.
 func (v *verifier) modelB() (*Model[interval.B], error) {
 	v.bOnce.Do(func() {
-		prec := uint(v.rel.PrecisionBits)
-		if prec < 106 {
-			prec = 106
-		}
-		if prec > 512 {
-			prec = 512
-		}
+		prec := uint(max(v.rel.PrecisionBits, 106))
 		v.mB, v.bErr = NewModel(interval.NewB(0, prec), v.edge, v.rel.Terms)
 	})
 	return v.mB, v.bErr
