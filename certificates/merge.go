@@ -41,7 +41,10 @@ func Merge(parts []*Certificate) (*Certificate, error) {
 	out := *rs[0]
 	out.Shard = nil
 	out.Cover = nil
-	claim, _ := Dec(rs[0].Claim.Bound, "claim.bound")
+	claim, err := Dec(rs[0].Claim.Bound, "shard 0 claim.bound")
+	if err != nil {
+		return nil, err
+	}
 	budget := rs[0].Budget
 	for i, r := range rs {
 		sh := r.Shard
@@ -62,8 +65,11 @@ func Merge(parts []*Certificate) (*Certificate, error) {
 			}
 		}
 		if len(out.Cover) > 0 && out.Cover[len(out.Cover)-1].Hi != r.Cover[0].Lo {
-			a, _ := Dec(out.Cover[len(out.Cover)-1].Hi, "hi")
-			b, _ := Dec(r.Cover[0].Lo, "lo")
+			a, err1 := Dec(out.Cover[len(out.Cover)-1].Hi, fmt.Sprintf("shard %d last hi", i-1))
+			b, err2 := Dec(r.Cover[0].Lo, fmt.Sprintf("shard %d first lo", i))
+			if err := errors.Join(err1, err2); err != nil {
+				return nil, err
+			}
 			if a.Cmp(b) < 0 {
 				return nil, fmt.Errorf("merge: gap between shard %d and shard %d: (%s, %s) is not covered", i-1, i, out.Cover[len(out.Cover)-1].Hi, r.Cover[0].Lo)
 			}

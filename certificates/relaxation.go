@@ -261,8 +261,14 @@ func (r *Relaxation) validate() error {
 		if err != nil {
 			return err
 		}
-		a, _ := Dec(first, "cover[0].lo")
-		b, _ := Dec(last, "cover[last].hi")
+		a, err := Dec(first, "cover[0].lo")
+		if err != nil {
+			return err
+		}
+		b, err := Dec(last, "cover[last].hi")
+		if err != nil {
+			return err
+		}
 		if a.Cmp(lo) < 0 || b.Cmp(hi) > 0 {
 			return fmt.Errorf("shard cover [%s, %s] leaves the full range [%s, %s]", first, last, sh.Lo, sh.Hi)
 		}

@@ -140,7 +140,7 @@ func SolveQuadrantEdge(e Edge, digits int, progress func(stage string, done, tot
 	// g'(c) at the last Newton precision; the value bound needs only its size.
 	var d interval.B
 	mB := interval.NewB(0, qd).Float(m) // exact: m is a float64
-	corr := interval.NewB(0, qd)
+	var corr interval.B
 	for extra := 0; ; extra++ {
 		d = QuadrantEigJet(c.WithPrec(qd), e, 1).L1
 		corr = d.Sqr().Quo(mB.Scale(1))

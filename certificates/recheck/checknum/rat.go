@@ -23,3 +23,9 @@ func RatDecimal(r *big.Rat) string {
 	f := new(big.Float).SetPrec(200).SetRat(r)
 	return interval.DecimalUp(f, 6)
 }
+
+// Enclose returns an enclosure of the rational r at the precision of like,
+// or the error of the interval library's exact-decimal reader.
+func Enclose[T interval.Real[T]](like T, r *big.Rat) (T, error) {
+	return like.Decimal(r.RatString())
+}

@@ -100,9 +100,6 @@ type expRegime[T interval.Real[T]] struct {
 	panels   int
 }
 
-// maxAbsS is the largest |s| a cover may reach.
-const maxAbsS = 1 << 30
-
 // termCache shares the terms (and so their quadrature regimes, which
 // depend only on k and the arithmetic) between models in one process.
 var termCache sync.Map
@@ -132,7 +129,14 @@ func newExpTerm[T interval.Real[T]](like T, params map[string]string) (*expTerm[
 			return e, nil
 		}
 	}
-	rat := func(r *big.Rat) T { v, _ := like.Decimal(r.String()); return v }
+	var encErr error
+	rat := func(r *big.Rat) T {
+		v, err := checknum.Enclose(like, r)
+		if err != nil && encErr == nil {
+			encErr = err
+		}
+		return v
+	}
 	k2 := new(big.Rat).Mul(k, k)
 	den := new(big.Rat).Add(k2, big.NewRat(4, 1))
 	qre := new(big.Rat).Quo(new(big.Rat).Sub(k2, big.NewRat(4, 1)), den)
@@ -151,6 +155,9 @@ func newExpTerm[T interval.Real[T]](like T, params map[string]string) (*expTerm[
 	// The term enters B as conj(I)/(pi (k+2i)); an error tau in I moves B by
 	// tau/(pi |k+2i|) per unit weight.
 	e.tau = mod.Mul(like.Float(math.Ldexp(1, -int(like.Prec())+3)))
+	if encErr != nil {
+		return nil, fmt.Errorf("exp parameter k = %s: %w", ks, encErr)
+	}
 	if !e.theta.IsFinite() || !mod.IsFinite() {
 		return nil, fmt.Errorf("exp parameter k = %s: constants not enclosed", ks)
 	}

@@ -11,9 +11,3 @@ type Options = recheck.Options
 func Verify(c *certificates.Certificate, opt Options) (*recheck.Result, error) {
 	return recheck.Verify(c, opt)
 }
-
-// detailOf returns the relaxation detail of a result.
-func detailOf(r *recheck.Result) *Detail {
-	d, _ := r.Detail.(*Detail)
-	return d
-}

@@ -8,6 +8,7 @@ import (
 	"strings"
 
 	"wedgebound/certificates"
+	"wedgebound/certificates/recheck/checknum"
 	"wedgebound/interval"
 )
 
@@ -192,8 +193,14 @@ func (m *Model[T]) Piece(a, b *big.Rat) (PieceResult[T], error) {
 	if !ok {
 		return PieceResult[T]{}, fmt.Errorf("piece [%s, %s] crosses a regime boundary or lies beyond |s| = 2^30", a.RatString(), b.RatString())
 	}
-	lo, _ := like.Decimal(a.String())
-	hi, _ := like.Decimal(b.String())
+	lo, err := checknum.Enclose(like, a)
+	if err != nil {
+		return PieceResult[T]{}, err
+	}
+	hi, err := checknum.Enclose(like, b)
+	if err != nil {
+		return PieceResult[T]{}, err
+	}
 	S := lo.Hull(hi)
 	c := S.Mid()
 	delta := interval.Upper(S.Sub(c).Abs())

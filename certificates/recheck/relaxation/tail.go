@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"math/big"
 
+	"wedgebound/certificates/recheck/checknum"
 	"wedgebound/interval"
 )
 
@@ -39,7 +40,10 @@ func (m *Model[T]) Tail(from *big.Rat, side int) (T, error) {
 		return like.Whole(), fmt.Errorf("tail from %s on side %d: the tail must start on its own side of 0", from.RatString(), side)
 	}
 	abs := new(big.Rat).Abs(from)
-	sEnc, _ := like.Decimal(abs.String())
+	sEnc, err := checknum.Enclose(like, abs)
+	if err != nil {
+		return like.Whole(), err
+	}
 	S := interval.Lower(sEnc)
 	one := like.Int(1)
 	aMin := interval.Lower(like.Frac(1, 4).Add(S.Sqr()).Sqrt())

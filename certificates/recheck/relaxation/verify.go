@@ -92,6 +92,7 @@ type verifier struct {
 	res   *recheck.Result
 	det   *Detail
 	fails []failure
+	nums  numbers
 	edge  Edge
 	bound *big.Rat
 	thr   *big.Rat // the edge eigenvalue must stay >= thr (lower) or <= thr (upper)
@@ -128,6 +129,9 @@ func (v *verifier) run() {
 	rel := v.rel
 	if sh := rel.Shard; sh != nil {
 		v.fail(failure{Where: "shard", Message: fmt.Sprintf("partial certificate (shard %d of %d): its cells cover only part of [%s, %s], so it proves nothing on its own; join all shards with wedgebound merge", sh.Index+1, sh.Count, sh.Lo, sh.Hi)})
+		return
+	}
+	if !v.readNumbers() {
 		return
 	}
 	v.edge = Edge(rel.Claim.Edge)
@@ -197,14 +201,51 @@ func (v *verifier) run() {
 	}
 }
 
+// cellNumbers are the exact values of one recorded cell.
+type cellNumbers struct{ lo, hi, el, eu *big.Rat }
+
+// tailNumbers are the exact values of one recorded tail.
+type tailNumbers struct{ from, bound *big.Rat }
+
+// numbers holds every recorded number of the cover and the tails, read
+// once; tails is indexed by side (-1 below, 1 above).
+type numbers struct {
+	cells []cellNumbers
+	tails map[int]tailNumbers
+}
+
+// readNumbers reads the cover and the tails exactly. A number that does not
+// read is a failure of the structure (and ends the check).
+func (v *verifier) readNumbers() bool {
+	rel := v.rel
+	ok := true
+	read := func(s, name string) *big.Rat {
+		r, err := certificates.Dec(s, name)
+		if err != nil {
+			v.fail(failure{Where: "structure", Message: err.Error()})
+			ok = false
+			return nil
+		}
+		return r
+	}
+	v.nums.cells = make([]cellNumbers, len(rel.Cover))
+	for i, c := range rel.Cover {
+		name := fmt.Sprintf("cover[%d]", i)
+		v.nums.cells[i] = cellNumbers{read(c.Lo, name+".lo"), read(c.Hi, name+".hi"), read(c.EigLower, name+".eig_lower"), read(c.EigUpper, name+".eig_upper")}
+	}
+	v.nums.tails = map[int]tailNumbers{
+		-1: {read(rel.Below.From, "tail_below.from"), read(rel.Below.Bound, "tail_below.bound")},
+		1:  {read(rel.Above.From, "tail_above.from"), read(rel.Above.Bound, "tail_above.bound")},
+	}
+	return ok
+}
+
 // checkRecorded tests the recorded numbers against the claim they are
 // supposed to support.
 func (v *verifier) checkRecorded() {
 	rel := v.rel
 	for i, c := range rel.Cover {
-		el, _ := certificates.Dec(c.EigLower, "eig_lower")
-		eu, _ := certificates.Dec(c.EigUpper, "eig_upper")
-		lo, _ := certificates.Dec(c.Lo, "lo")
+		el, eu, lo := v.nums.cells[i].el, v.nums.cells[i].eu, v.nums.cells[i].lo
 		if v.edge == Lower && el.Cmp(v.thr) < 0 {
 			v.fail(failure{Where: fmt.Sprintf("cover[%d]", i), Lo: c.Lo, Hi: c.Hi, order: orderCover, s: lo,
 				Message: fmt.Sprintf("the recorded enclosure [%s, %s] does not support the claim: its lower end is below -%s", c.EigLower, c.EigUpper, rel.Claim.Bound),
@@ -222,8 +263,7 @@ func (v *verifier) checkRecorded() {
 		side  int
 		order int
 	}{{rel.Below, "tail_below", -1, orderTailBelow}, {rel.Above, "tail_above", 1, orderTailAbove}} {
-		tb, _ := certificates.Dec(t.tail.Bound, t.name+".bound")
-		from, _ := certificates.Dec(t.tail.From, t.name+".from")
+		tb, from := v.nums.tails[t.side].bound, v.nums.tails[t.side].from
 		lim := big.NewRat(int64(v.mF.TailLimit(t.side)), 1)
 		f := failure{Where: t.name, Lo: t.tail.From, order: t.order, s: from}
 		if v.edge == Lower {
@@ -328,11 +368,10 @@ func (v *verifier) checkCells() {
 		go func() {
 			defer wg.Done()
 			for i := range jobs {
-				lo, _ := certificates.Dec(rel.Cover[i].Lo, "lo")
-				hi, _ := certificates.Dec(rel.Cover[i].Hi, "hi")
+				lo, hi := v.nums.cells[i].lo, v.nums.cells[i].hi
 				results[i] = v.cell(lo, hi)
 				if results[i].failure == nil {
-					results[i].recorded = v.checkRecordedCell(rel.Cover[i], lo, hi, &results[i])
+					results[i].recorded = v.checkRecordedCell(rel.Cover[i], v.nums.cells[i], &results[i])
 				}
 			}
 		}()
@@ -347,7 +386,7 @@ func (v *verifier) checkCells() {
 		v.det.Pieces += r.pieces
 		v.det.HighPrecision += r.high
 		v.addWorst(r.worst)
-		lo, _ := certificates.Dec(c.Lo, "lo")
+		lo := v.nums.cells[i].lo
 		if r.failure != nil {
 			f := *r.failure
 			f.Where = fmt.Sprintf("cover[%d]", i)
@@ -371,9 +410,8 @@ func (v *verifier) checkCells() {
 // it, a point value that misses it, and, when the verifier's hull reaches
 // well beyond the recorded enclosure, point values on a grid of the cell.
 // It returns nil when nothing contradicts the record.
-func (v *verifier) checkRecordedCell(c certificates.Cell, lo, hi *big.Rat, r *cellResult) *failure {
-	el, _ := certificates.Dec(c.EigLower, "eig_lower")
-	eu, _ := certificates.Dec(c.EigUpper, "eig_upper")
+func (v *verifier) checkRecordedCell(c certificates.Cell, n cellNumbers, r *cellResult) *failure {
+	lo, hi, el, eu := n.lo, n.hi, n.el, n.eu
 	elF := new(big.Float).SetPrec(200).SetRat(el)
 	euF := new(big.Float).SetPrec(200).SetRat(eu)
 	miss := func(l, h *big.Float) bool { return h.Cmp(elF) < 0 || l.Cmp(euF) > 0 }
@@ -539,14 +577,14 @@ func (v *verifier) checkTail(side int) {
 	if side > 0 {
 		t, name, order = rel.Above, "tail_above", orderTailAbove
 	}
-	from, _ := certificates.Dec(t.From, name+".from")
+	from := v.nums.tails[side].from
 	if from.Sign() != side {
 		v.fail(failure{Where: name, Lo: t.From, order: order, s: from, Message: fmt.Sprintf("%s starts at %s, on the wrong side of 0 (the cover must contain s = 0 in its interior)", name, t.From)})
 		return
 	}
 	// The recorded tail bound must hold at the tail's first point.
 	if pt, err := v.mF.Piece(from, from); err == nil {
-		tb, _ := certificates.Dec(t.Bound, name+".bound")
+		tb := v.nums.tails[side].bound
 		tbF := new(big.Float).SetPrec(200).SetRat(tb)
 		pl, ph := pt.Mid.Endpoints()
 		if v.edge == Lower && ph != nil && ph.Cmp(tbF) < 0 || v.edge == Upper && pl != nil && pl.Cmp(tbF) > 0 {

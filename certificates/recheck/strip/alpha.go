@@ -43,7 +43,10 @@ func stripQuantity(s, what string, units map[string]string) (*big.Rat, error) {
 	if !ok {
 		return nil, fmt.Errorf("%s %q: unknown unit %q", what, s, m[2])
 	}
-	fr, _ := new(big.Rat).SetString(f)
+	fr, ok := new(big.Rat).SetString(f)
+	if !ok {
+		return nil, fmt.Errorf("%s %q: the factor %q of unit %q does not read", what, s, f, m[2])
+	}
 	return v.Mul(v, fr), nil
 }
 
@@ -61,7 +64,10 @@ func stripAlphaFromUnits(u *certificates.StripUnits) (*big.Rat, error) {
 	if err != nil {
 		return nil, err
 	}
-	h, _ := new(big.Rat).SetString(stripPlanck)
+	h, ok := new(big.Rat).SetString(stripPlanck)
+	if !ok {
+		return nil, fmt.Errorf("the Planck constant %q does not read", stripPlanck)
+	}
 	r := new(big.Rat).Mul(m, new(big.Rat).Mul(l, l))
 	return r.Quo(r, new(big.Rat).Mul(h, t)), nil
 }
@@ -104,8 +110,7 @@ func (v *stripVerifier) checkAlpha() (interval.B, bool) {
 		a = a.Mul(a.Pi()).Scale(1)
 	}
 	v.alpha = a
-	lo, _ := certificates.Dec(s.Alpha.Lower, "alpha.lower")
-	hi, _ := certificates.Dec(s.Alpha.Upper, "alpha.upper")
+	lo, hi := v.rat(s.Alpha.Lower), v.rat(s.Alpha.Upper)
 	al, ah := a.Endpoints()
 	alR, _ := al.Rat(nil) // exact
 	ahR, _ := ah.Rat(nil)
@@ -119,11 +124,11 @@ func (v *stripVerifier) checkAlpha() (interval.B, bool) {
 			Message: fmt.Sprintf("cannot prove that [%s, %s] contains alpha = %s", s.Alpha.Lower, s.Alpha.Upper, s.Alpha.Value)})
 	}
 
-	au, _ := certificates.Dec(s.AlphaUsed, "alpha_used")
+	au := v.rat(s.AlphaUsed)
 	d := a.Sub(ratB(au, stripAlphaPrec)).Abs()
 	twoPiB := a.Pi().Scale(1)
 	q := d.Quo(twoPiB)
-	e, _ := certificates.Dec(s.Errors.AlphaRounding, "errors.alpha_rounding")
+	e := v.rat(s.Errors.AlphaRounding)
 	ql, qh := q.Endpoints()
 	qlR, _ := ql.Rat(nil)
 	qhR, _ := qh.Rat(nil)

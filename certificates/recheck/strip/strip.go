@@ -12,6 +12,7 @@ import (
 	"strings"
 	"time"
 
+	"errors"
 	"wedgebound/certificates"
 	"wedgebound/certificates/recheck"
 	"wedgebound/certificates/recheck/checknum"
@@ -101,6 +102,7 @@ type stripVerifier struct {
 	opt   recheck.Options
 	res   *recheck.Result
 	sr    *Detail
+	nums  map[string]*big.Rat
 	alpha interval.B
 	start time.Time
 	stage time.Time
@@ -160,19 +162,66 @@ func (Checker) Check(c *certificates.Certificate, opt recheck.Options) (*recheck
 	return v.res, nil
 }
 
-// rat parses a field the schema has already validated.
-func (v *stripVerifier) rat(s string) *big.Rat {
-	r, err := certificates.Dec(s, "")
-	if err != nil {
-		return new(big.Rat)
+// readNumbers reads, exactly, every recorded number the proof uses. One
+// that does not read is a failure of the structure and ends the check.
+func (v *stripVerifier) readNumbers() bool {
+	s := v.s
+	v.nums = map[string]*big.Rat{}
+	ok := true
+	read := func(txt, name string) {
+		if _, done := v.nums[txt]; done {
+			return
+		}
+		r, err := certificates.Dec(txt, name)
+		if err != nil {
+			v.fail(recheck.Failure{Where: "structure", Message: err.Error()})
+			ok = false
+			return
+		}
+		v.nums[txt] = r
 	}
-	return r
+	read(s.Alpha.Lower, "alpha.lower")
+	read(s.Alpha.Upper, "alpha.upper")
+	read(s.AlphaUsed, "alpha_used")
+	read(s.Errors.AlphaRounding, "errors.alpha_rounding")
+	read(s.Errors.DiscardedPart, "errors.discarded_part")
+	read(s.Errors.DiscardedEtaX, "errors.discarded_eta_x")
+	read(s.Errors.DiscardedEtaY, "errors.discarded_eta_y")
+	read(s.GalerkinLowest, "galerkin_lowest")
+	read(s.GalerkinHighest, "galerkin_highest")
+	for _, b := range []struct {
+		b    certificates.StripBracket
+		name string
+	}{{s.Advantage, "advantage"}, {s.Deficit, "deficit"}, {s.AdvantageWitness.Rayleigh, "advantage_witness.rayleigh"}, {s.DeficitWitness.Rayleigh, "deficit_witness.rayleigh"}} {
+		read(b.b.Lower, b.name+".lower")
+		read(b.b.Upper, b.name+".upper")
+	}
+	for j, c := range s.AdvantageWitness.Coefficients {
+		read(c, fmt.Sprintf("advantage_witness.coefficients[%d]", j))
+	}
+	for j, c := range s.DeficitWitness.Coefficients {
+		read(c, fmt.Sprintf("deficit_witness.coefficients[%d]", j))
+	}
+	return ok
+}
+
+// rat returns the exact value of a recorded number (a copy); readNumbers
+// has read every number the proof asks for.
+func (v *stripVerifier) rat(txt string) *big.Rat {
+	r, ok := v.nums[txt]
+	if !ok {
+		panic("strip verifier: the recorded number " + txt + " was not read first")
+	}
+	return new(big.Rat).Set(r)
 }
 
 func ratOfFloat(x float64) *big.Rat { r, _ := new(big.Float).SetFloat64(x).Rat(nil); return r }
 
 func (v *stripVerifier) run() {
 	s := v.s
+	if !v.readNumbers() {
+		return
+	}
 	q, ok := v.checkAlpha()
 	v.lap("alpha")
 	if !ok {
@@ -366,8 +415,12 @@ func (v *stripVerifier) run() {
 	gk := stripGalerkin(At, rows, quadG, radA, normA, v.opt.Workers)
 	At = nil
 	v.sr.GalerkinDistance = sciUp(gk.delta.Hi())
-	glF, _ := interval.F{}.Decimal(s.GalerkinLowest)
-	ghF, _ := interval.F{}.Decimal(s.GalerkinHighest)
+	glF, err1 := checknum.Enclose(interval.F{}, gl)
+	ghF, err2 := checknum.Enclose(interval.F{}, gh)
+	if err := errors.Join(err1, err2); err != nil {
+		v.fail(recheck.Failure{Where: "galerkin_lowest", Message: "the recorded Galerkin bounds cannot be enclosed: " + err.Error()})
+		return
+	}
 	lowOK, highOK := false, false
 	var lowP, highP float64
 	if R[0].Hi() < glF.Lo() {
@@ -484,16 +537,13 @@ func ratFloat(r *big.Rat, mode big.RoundingMode) *big.Float {
 // of the verifier's own choosing when that is smaller.
 func (v *stripVerifier) discarded(alpha interval.F, N int) (interval.F, string) {
 	s := v.s
-	ex, err1 := certificates.Dec(s.Errors.DiscardedEtaX, "")
-	ey, err2 := certificates.Dec(s.Errors.DiscardedEtaY, "")
+	ex, ey := v.rat(s.Errors.DiscardedEtaX), v.rat(s.Errors.DiscardedEtaY)
 	best := interval.F{}.Whole()
-	if err1 == nil && err2 == nil {
-		e1, _ := ex.Float64()
-		e2, _ := ey.Float64()
-		if e1 > 0 && e2 > 0 && e1 < 50 && e2 < 50 {
-			lm := newKernelSup(alpha, e1, e2).bound(1e-5)
-			best = tailF(lm, N, e1, e2)
-		}
+	e1, _ := ex.Float64() // the nearest float64: the ellipse is then the verifier's choice
+	e2, _ := ey.Float64()
+	if e1 > 0 && e2 > 0 && e1 < 50 && e2 < 50 {
+		lm := newKernelSup(alpha, e1, e2).bound(1e-5)
+		best = tailF(lm, N, e1, e2)
 	}
 	t := v.rat(s.Errors.DiscardedPart)
 	if best.IsFinite() && ratOfFloat(best.Hi()).Cmp(t) <= 0 {
