@@ -11,6 +11,8 @@ import (
 // quadrature of the diagonal entry expensive).
 const maxKnot = 1000
 
+func init() { registerFamily("band", newBandTerm[interval.F], newBandTerm[interval.B]) }
+
 // newBandTerm builds the band h(xp) = 1 for from < xp < to on quadrant III
 // (to may be "inf"). Its quadrant-I profile jumps up at from and down at
 // to, so M_{+-} = E(to, s) - E(from, s) with E(inf, s) = 0, and

@@ -59,6 +59,8 @@ type expRegime[T interval.Real[T]] struct {
 
 const expNodes = 20
 
+func init() { registerFamily("exp", newExpTerm[interval.F], newExpTerm[interval.B]) }
+
 func newExpTerm[T interval.Real[T]](like T, params map[string]string) (Term[T], error) {
 	if len(params) != 1 || params["k"] == "" {
 		return nil, fmt.Errorf("exp term needs exactly the parameter k")

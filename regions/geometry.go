@@ -231,14 +231,20 @@ func Normalize(p Problem) (Normal, error) {
 // A t + B u/t >= D; the minimum over t of the left side is 2 sqrt(A B u), so
 // every point of the hyperbola xp = u is free iff 4 A B u >= D^2.
 func (n Normal) Threshold() (u0 *big.Rat, ok bool) {
-	if n.D.Sign() == 0 {
+	return Threshold(n.A, n.B, n.D)
+}
+
+// Threshold returns d^2/(4ab) for the image half-plane {a x + b p > -d}
+// (0 when d = 0); ok is false when a b = 0 < d (see Normal.Threshold).
+func Threshold(a, b, d *big.Rat) (u0 *big.Rat, ok bool) {
+	if d.Sign() == 0 {
 		return new(big.Rat), true
 	}
-	ab := new(big.Rat).Mul(n.A, n.B)
+	ab := new(big.Rat).Mul(a, b)
 	if ab.Sign() == 0 {
 		return nil, false
 	}
-	u := new(big.Rat).Mul(n.D, n.D)
+	u := new(big.Rat).Mul(d, d)
 	u.Quo(u, ab.Mul(ab, big.NewRat(4, 1)))
 	return u, true
 }

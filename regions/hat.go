@@ -6,6 +6,8 @@ import (
 	"wedgebound/interval"
 )
 
+func init() { registerFamily("hat", newHatTerm[interval.F], newHatTerm[interval.B]) }
+
 // newHatTerm builds the hat profile on quadrant III: h(xp) rises linearly
 // from 0 at left to 1 at peak and falls back to 0 at right. As
 // h(u) = sum_j sigma_j (u - c_j)_+ with slopes sigma = (1/(m-l),

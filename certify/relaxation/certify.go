@@ -91,14 +91,14 @@ func run[T interval.Real[T]](cfg Config, prec T) (*Outcome, error) {
 	}
 	edge := nf.Edge
 	u0, ok := nf.Threshold()
-	if len(cfg.Ks) > 0 && (!ok || u0.Sign() != 0) {
-		return nil, errors.New("the exponential profiles reach xp = 0, but this geometry leaves only xp >= d^2/(4ab) > 0 of quadrant III free; certify the bare quadrant (no terms) instead")
-	}
 	like := interval.PointF(0)
 	var terms []regions.Term[interval.F]
 	for _, k := range cfg.Ks {
 		t, err := regions.NewTerm(like, "exp", map[string]string{"k": k})
 		if err != nil {
+			return nil, err
+		}
+		if err := regions.Admissible(t.Kind(), t.Start(), u0, ok); err != nil {
 			return nil, err
 		}
 		terms = append(terms, t)

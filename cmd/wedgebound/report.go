@@ -10,6 +10,7 @@ import (
 	"github.com/spf13/pflag"
 
 	"wedgebound/certificates"
+	"wedgebound/interval"
 	"wedgebound/regions"
 )
 
@@ -184,8 +185,12 @@ func (it reportItem) consistent() error {
 		return fmt.Errorf("the recorded threshold %s is not d^2/(4ab) = %s", recorded, regions.RatString(thr))
 	}
 	for i, t := range r.Terms {
-		if t.Kind == "exp" && (!ok || thr.Sign() != 0) {
-			return fmt.Errorf("term %d: an exp profile is positive on all of xp > 0, below the threshold %s: the relaxation is not admissible", i+1, r.Normal.Threshold)
+		term, err := regions.NewTerm(interval.F{}, t.Kind, t.Params)
+		if err != nil {
+			return fmt.Errorf("term %d: %v", i+1, err)
+		}
+		if err := regions.Admissible(term.Kind(), term.Start(), thr, ok); err != nil {
+			return fmt.Errorf("term %d: %v: the relaxation is not admissible", i+1, err)
 		}
 	}
 	bound := rat(r.Claim.Bound)
@@ -212,18 +217,9 @@ func (it reportItem) consistent() error {
 	return nil
 }
 
-// threshold returns d^2/(4ab) (0 when d = 0); ok is false when ab = 0 < d.
+// threshold returns d^2/(4ab) of the recorded normal form (regions.Threshold).
 func threshold(n certificates.NormalForm) (*big.Rat, bool) {
-	a, b, d := rat(n.A), rat(n.B), rat(n.D)
-	if d.Sign() == 0 {
-		return new(big.Rat), true
-	}
-	ab := new(big.Rat).Mul(a, b)
-	if ab.Sign() == 0 {
-		return nil, false
-	}
-	u := new(big.Rat).Mul(d, d)
-	return u.Quo(u, ab.Mul(ab, big.NewRat(4, 1))), true
+	return regions.Threshold(rat(n.A), rat(n.B), rat(n.D))
 }
 
 // backflowEquivalent reports d = 0 < a, b: the squeeze (x, p) -> (l x, p/l)

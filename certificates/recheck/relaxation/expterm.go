@@ -104,6 +104,10 @@ type expRegime[T interval.Real[T]] struct {
 // depend only on k and the arithmetic) between models in one process.
 var termCache sync.Map
 
+// expStart is where the support of e^{-k u} starts: u = 0, since the
+// profile is positive for every u > 0 (whatever k).
+func expStart(map[string]string) (*big.Rat, error) { return new(big.Rat), nil }
+
 func newExpTerm[T interval.Real[T]](like T, params map[string]string) (*expTerm[T], error) {
 	if len(params) != 1 {
 		return nil, errors.New(`the "exp" family takes exactly one parameter, k`)

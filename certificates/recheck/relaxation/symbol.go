@@ -34,12 +34,34 @@ type Model[T interval.Real[T]] struct {
 	Edge    Edge
 	like    T
 	terms   []*expTerm[T]
+	starts  []*big.Rat
 	weights []T
 	wRat    []*big.Rat
 }
 
+// family is what the verifier knows of a relaxation family beyond its
+// symbol: where its profile's support starts, exactly, from the parameters
+// (for the admissibility test against the threshold d^2/(4ab)).
+type family struct {
+	start func(params map[string]string) (*big.Rat, error)
+}
+
+// families is the verifier's own registry of relaxation families; a family
+// the certifier knows is accepted here only once the verifier has its own
+// code for it.
+var families = map[string]family{
+	"exp": {start: expStart},
+}
+
 // TermKinds lists the profile families the verifier knows.
-func TermKinds() []string { return []string{"exp"} }
+func TermKinds() []string {
+	k := make([]string, 0, len(families))
+	for kind := range families {
+		k = append(k, kind)
+	}
+	sort.Strings(k)
+	return k
+}
 
 // ErrUnknownKind is wrapped by the error for a term of an unknown family.
 var ErrUnknownKind = errors.New("unknown term kind")
@@ -52,18 +74,20 @@ func NewModel[T interval.Real[T]](like T, edge Edge, terms []certificates.Term) 
 	}
 	m := &Model[T]{Edge: edge, like: like.Int(0)}
 	for i, t := range terms {
-		switch t.Kind {
-		case "exp":
-			e, err := newExpTerm(like, t.Params)
-			if err != nil {
-				return nil, fmt.Errorf("terms[%d]: %v", i, err)
-			}
-			m.terms = append(m.terms, e)
-		default:
-			known := TermKinds()
-			sort.Strings(known)
-			return nil, fmt.Errorf("terms[%d]: %w %q (this verifier knows: %s)", i, ErrUnknownKind, t.Kind, strings.Join(known, ", "))
+		f, ok := families[t.Kind]
+		if !ok {
+			return nil, fmt.Errorf("terms[%d]: %w %q (this verifier knows: %s)", i, ErrUnknownKind, t.Kind, strings.Join(TermKinds(), ", "))
 		}
+		st, err := f.start(t.Params)
+		if err != nil {
+			return nil, fmt.Errorf("terms[%d]: %v", i, err)
+		}
+		e, err := newExpTerm(like, t.Params)
+		if err != nil {
+			return nil, fmt.Errorf("terms[%d]: %v", i, err)
+		}
+		m.terms = append(m.terms, e)
+		m.starts = append(m.starts, st)
 		w, err := certificates.Dec(t.Weight, fmt.Sprintf("terms[%d].weight", i))
 		if err != nil {
 			return nil, err
@@ -79,8 +103,8 @@ func NewModel[T interval.Real[T]](like T, edge Edge, terms []certificates.Term) 
 }
 
 // TermStart returns the infimum of xp over the support of term i's
-// profile: 0 for "exp" (e^{-k u} > 0 for every u > 0).
-func (m *Model[T]) TermStart(i int) *big.Rat { return new(big.Rat) }
+// profile (its family's start).
+func (m *Model[T]) TermStart(i int) *big.Rat { return new(big.Rat).Set(m.starts[i]) }
 
 // entries is an enclosure of (A, D, B) over a set of s.
 type entries[T interval.Real[T]] struct {
