@@ -8,7 +8,7 @@ import (
 	"testing"
 
 	"wedgebound/certificates"
-	"wedgebound/certificates/recheck/relaxation"
+	"wedgebound/certificates/recheck/relaxation/reltest"
 )
 
 // backflowProblem is the backflow geometry: states with positive momentum
@@ -36,11 +36,11 @@ var cache sync.Map
 
 // certFor builds (once per test binary) a certificate with the verifier's
 // own reference builder.
-func certFor(t testing.TB, name string, o relaxation.BuildOptions) *certificates.Certificate {
+func certFor(t testing.TB, name string, o reltest.BuildOptions) *certificates.Certificate {
 	t.Helper()
 	v, _ := cache.LoadOrStore(name, &built{})
 	b := v.(*built)
-	b.once.Do(func() { b.c, b.err = relaxation.BuildCertificate(o) })
+	b.once.Do(func() { b.c, b.err = reltest.BuildCertificate(o) })
 	if b.err != nil {
 		t.Fatalf("building %s: %v", name, b.err)
 	}
@@ -65,20 +65,20 @@ func clone(t testing.TB, c *certificates.Certificate) *certificates.Certificate 
 // inf spec = -0.155940 (R. F. Werner, J. Phys. A 21 (1988) 4565, from
 // memory; -0.15593984319124276 with mpmath in the regions package doc).
 func quadrantLower(t testing.TB) *certificates.Certificate {
-	return certFor(t, "quadrant-lower", relaxation.BuildOptions{Problem: backflowProblem("lower"), Bound: "0.1560", Lo: "-8", Hi: "8"})
+	return certFor(t, "quadrant-lower", reltest.BuildOptions{Problem: backflowProblem("lower"), Bound: "0.1560", Lo: "-8", Hi: "8"})
 }
 
 // quadrantUpper claims 1.0077 for the upper edge: sup spec = 1.007680
 // (same sources; 1.00767997007003414 in the regions package doc).
 func quadrantUpper(t testing.TB) *certificates.Certificate {
-	return certFor(t, "quadrant-upper", relaxation.BuildOptions{Problem: backflowProblem("upper"), Bound: "1.0077", Lo: "-8", Hi: "8"})
+	return certFor(t, "quadrant-upper", reltest.BuildOptions{Problem: backflowProblem("upper"), Bound: "1.0077", Lo: "-8", Hi: "8"})
 }
 
 // expLower is the backflow relaxation with one exp term (k = 150, weight
 // 8.46), for which floating-point scans give min lambda_min about
 // -0.05265; it claims 0.06.
 func expLower(t testing.TB) *certificates.Certificate {
-	return certFor(t, "exp-lower", relaxation.BuildOptions{Problem: backflowProblem("lower"), Terms: []certificates.Term{expTerm("150", "8.46")}, Bound: "0.06", Lo: "-40", Hi: "16"})
+	return certFor(t, "exp-lower", reltest.BuildOptions{Problem: backflowProblem("lower"), Terms: []certificates.Term{expTerm("150", "8.46")}, Bound: "0.06", Lo: "-40", Hi: "16"})
 }
 
 // writeCert seals nothing: it writes c as it is.

@@ -42,22 +42,3 @@ func BenchmarkRegimeBuild(b *testing.B) {
 		}
 	}
 }
-
-// BenchmarkVerifyExp verifies a 75-cell certificate with one exp term on
-// one goroutine; the quadrature regimes are built in the first iteration
-// and shared afterwards (see BenchmarkRegimeBuild for their cost).
-func BenchmarkVerifyExp(b *testing.B) {
-	c, err := BuildCertificate(BuildOptions{Problem: backflow("lower"),
-		Terms: []certificates.Term{{Kind: "exp", Params: map[string]string{"k": "150"}, Weight: "8.46"}},
-		Bound: "0.06", Lo: "-40", Hi: "16"})
-	if err != nil {
-		b.Fatal(err)
-	}
-	b.ReportMetric(float64(len(c.Relaxation.Cover)), "cells")
-	for b.Loop() {
-		r, err := Verify(c, Options{Workers: 1})
-		if err != nil || !r.Pass {
-			b.Fatal("verification failed")
-		}
-	}
-}

@@ -33,6 +33,7 @@
 //     each tail's recorded bound must support the claim and must not be
 //     contradicted by the recomputation.
 //
-// Checker.Check runs all of it over a decoded certificate; BuildCertificate is a
-// small reference certifier on the same numerics, used by the tests.
+// Checker.Check runs all of it over a decoded certificate. The test-support
+// package reltest holds BuildCertificate, a small reference certifier on
+// the same numerics used by the tests (outside the trusted base).
 package relaxation

@@ -11,3 +11,13 @@ type Options = recheck.Options
 func Verify(c *certificates.Certificate, opt Options) (*recheck.Result, error) {
 	return recheck.Verify(c, opt)
 }
+
+// backflow is the backflow problem (vertex on the boundary of {p > 0}).
+func backflow(edge string) certificates.Problem {
+	return certificates.Problem{
+		Vertex:    [2]string{"0", "0"},
+		Rays:      [2][2]string{{"0", "1"}, {"-1", "1"}},
+		Halfplane: certificates.Halfplane{Normal: [2]string{"0", "1"}, Offset: "0"},
+		Edge:      edge,
+	}
+}

@@ -273,3 +273,28 @@ func Pieces(a, b *big.Rat) [][2]*big.Rat {
 	}
 	return append(out, [2]*big.Rat{cur, b})
 }
+
+// Budget returns the largest quadrature and truncation terms added to any
+// B entry so far (errQ and errT of a regime scaled by |w|/(pi |k+2i|));
+// the tail lemmas and rounding add no separate term (interval arithmetic
+// carries the rounding).
+func (m *Model[T]) Budget() certificates.Budget {
+	q, t := m.like.Int(0), m.like.Int(0)
+	for i, e := range m.terms {
+		scale := m.weights[i].Abs().Quo(e.mod.Mul(m.like.Pi()))
+		e.mu.Lock()
+		for _, slot := range e.regimes {
+			if slot.r != nil {
+				q = q.Max(interval.Upper(slot.r.errQ.Mul(scale)))
+				t = t.Max(interval.Upper(slot.r.errT.Mul(scale)))
+			}
+		}
+		e.mu.Unlock()
+	}
+	_, qs, err1 := interval.Decimals(q, 3)
+	_, ts, err2 := interval.Decimals(t, 3)
+	if err1 != nil || err2 != nil {
+		qs, ts = "1e300", "1e300" // an unbounded term: record a huge one
+	}
+	return certificates.Budget{Quadrature: qs, Truncation: ts, Tails: "0", Rounding: "0"}
+}

@@ -1,4 +1,4 @@
-package relaxation
+package relaxation_test
 
 import (
 	"math/big"
@@ -7,9 +7,11 @@ import (
 	"testing"
 
 	"wedgebound/certificates"
+	"wedgebound/certificates/recheck/relaxation"
+	"wedgebound/certificates/recheck/relaxation/reltest"
 )
 
-func backflow(edge string) certificates.Problem {
+func backflowProblem(edge string) certificates.Problem {
 	return certificates.Problem{
 		Vertex:    [2]string{"0", "0"},
 		Rays:      [2][2]string{{"0", "1"}, {"-1", "1"}},
@@ -28,7 +30,7 @@ var (
 // -0.05265 by a float scan), claiming 0.06.
 func expBackflow(t *testing.T) *certificates.Certificate {
 	expOnce.Do(func() {
-		expCert, expErr = BuildCertificate(BuildOptions{Problem: backflow("lower"),
+		expCert, expErr = reltest.BuildCertificate(reltest.BuildOptions{Problem: backflowProblem("lower"),
 			Terms: []certificates.Term{{Kind: "exp", Params: map[string]string{"k": "150"}, Weight: "8.46"}},
 			Bound: "0.06", Lo: "-40", Hi: "16"})
 	})
@@ -44,24 +46,24 @@ func expBackflow(t *testing.T) *certificates.Certificate {
 }
 
 func TestVerifyPasses(t *testing.T) {
-	for _, o := range []BuildOptions{
-		{Problem: backflow("lower"), Bound: "0.1560", Lo: "-8", Hi: "8"},
-		{Problem: backflow("upper"), Bound: "1.0077", Lo: "-8", Hi: "8"},
+	for _, o := range []reltest.BuildOptions{
+		{Problem: backflowProblem("lower"), Bound: "0.1560", Lo: "-8", Hi: "8"},
+		{Problem: backflowProblem("upper"), Bound: "1.0077", Lo: "-8", Hi: "8"},
 	} {
-		c, err := BuildCertificate(o)
+		c, err := reltest.BuildCertificate(o)
 		if err != nil {
 			t.Fatal(err)
 		}
-		r, err := Verify(c, Options{})
+		r, err := relaxation.Verify(c, relaxation.Options{})
 		if err != nil || !r.Pass {
 			t.Fatalf("%s %s: %v %+v", o.Problem.Edge, o.Bound, err, r)
 		}
 	}
-	r, err := Verify(expBackflow(t), Options{})
+	r, err := relaxation.Verify(expBackflow(t), relaxation.Options{})
 	if err != nil || !r.Pass {
 		t.Fatalf("exp: %v %+v", err, r)
 	}
-	if got, ok := new(big.Rat).SetString(r.Recomputed); !ok || got.Cmp(rat(t, "0.06")) > 0 || got.Cmp(rat(t, "0.05264")) < 0 {
+	if got, ok := new(big.Rat).SetString(r.Recomputed); !ok || got.Cmp(ratOf(t, "0.06")) > 0 || got.Cmp(ratOf(t, "0.05264")) < 0 {
 		t.Errorf("recomputed bound %q: should lie in [0.05265, 0.06]", r.Recomputed)
 	}
 }
@@ -69,11 +71,11 @@ func TestVerifyPasses(t *testing.T) {
 // Claims beyond the true edge values (Werner 1988, see TestQuadrantEdges)
 // cannot be built.
 func TestBuildRefusesFalseClaims(t *testing.T) {
-	for _, o := range []BuildOptions{
-		{Problem: backflow("lower"), Bound: "0.1559", Lo: "-8", Hi: "8", MaxCells: 3000},
-		{Problem: backflow("upper"), Bound: "1.00767", Lo: "-8", Hi: "8", MaxCells: 3000},
+	for _, o := range []reltest.BuildOptions{
+		{Problem: backflowProblem("lower"), Bound: "0.1559", Lo: "-8", Hi: "8", MaxCells: 3000},
+		{Problem: backflowProblem("upper"), Bound: "1.00767", Lo: "-8", Hi: "8", MaxCells: 3000},
 	} {
-		if _, err := BuildCertificate(o); err == nil {
+		if _, err := reltest.BuildCertificate(o); err == nil {
 			t.Errorf("%s %s: built a false claim", o.Problem.Edge, o.Bound)
 		}
 	}
@@ -86,8 +88,8 @@ func TestTailExtension(t *testing.T) {
 	rel := c.Relaxation
 	var kept []certificates.Cell
 	for _, cell := range rel.Cover {
-		lo := rat(t, cell.Lo)
-		if lo.Cmp(rat(t, "-20")) >= 0 {
+		lo := ratOf(t, cell.Lo)
+		if lo.Cmp(ratOf(t, "-20")) >= 0 {
 			kept = append(kept, cell)
 		}
 	}
@@ -96,14 +98,14 @@ func TestTailExtension(t *testing.T) {
 	if err := certificates.Seal(c); err != nil {
 		t.Fatal(err)
 	}
-	r, err := Verify(c, Options{})
+	r, err := relaxation.Verify(c, relaxation.Options{})
 	if err != nil || !r.Pass {
 		t.Fatalf("extension: %v %+v", err, r.Failures)
 	}
 	if len(r.Notes) == 0 || !strings.Contains(r.Notes[0], "tail_below") {
 		t.Errorf("no note about the extension: %v", r.Notes)
 	}
-	r, _ = Verify(c, Options{NoTailExtension: true})
+	r, _ = relaxation.Verify(c, relaxation.Options{NoTailExtension: true})
 	if r.Pass || r.Failures[0].Where != "tail_below" {
 		t.Errorf("without extension: %+v", r.Failures)
 	}
@@ -115,14 +117,14 @@ func TestInadmissibleTerm(t *testing.T) {
 	c := expBackflow(t)
 	rel := c.Relaxation
 	rel.Problem.Vertex = [2]string{"0", "1"}
-	nf, err := Recompute(rel.Problem)
+	nf, err := relaxation.Recompute(rel.Problem)
 	if err != nil {
 		t.Fatal(err)
 	}
 	rel.Normal.D = nf.D.RatString()
 	rel.Normal.Threshold = nf.Threshold.RatString()
 	certificates.Seal(c)
-	r, _ := Verify(c, Options{})
+	r, _ := relaxation.Verify(c, relaxation.Options{})
 	if r.Pass || r.Failures[0].Where != "terms[0]" || !strings.Contains(r.Failures[0].Message, "xp >= 1/4") {
 		t.Fatalf("inadmissible term accepted: %+v", r.Failures)
 	}
@@ -136,26 +138,53 @@ func TestInadmissibleTerm(t *testing.T) {
 func TestNoAdmissibleProfile(t *testing.T) {
 	p := certificates.Problem{Vertex: [2]string{"0", "0"}, Rays: [2][2]string{{"1", "0"}, {"0", "1"}},
 		Halfplane: certificates.Halfplane{Normal: [2]string{"0", "1"}, Offset: "-1"}, Edge: "lower"}
-	c, err := BuildCertificate(BuildOptions{Problem: p, Bound: "0.1560", Lo: "-8", Hi: "8"})
+	c, err := reltest.BuildCertificate(reltest.BuildOptions{Problem: p, Bound: "0.1560", Lo: "-8", Hi: "8"})
 	if err != nil {
 		t.Fatal(err)
 	}
-	if c.Relaxation.Normal.Threshold != NoThreshold {
+	if c.Relaxation.Normal.Threshold != relaxation.NoThreshold {
 		t.Fatalf("threshold %q", c.Relaxation.Normal.Threshold)
 	}
-	r, _ := Verify(c, Options{})
+	r, _ := relaxation.Verify(c, relaxation.Options{})
 	if !r.Pass {
 		t.Fatalf("bare quadrant rejected: %+v", r.Failures)
 	}
 	c.Relaxation.Terms = []certificates.Term{{Kind: "exp", Params: map[string]string{"k": "150"}, Weight: "1"}}
-	r, _ = Verify(c, Options{})
+	r, _ = relaxation.Verify(c, relaxation.Options{})
 	if r.Pass || r.Failures[0].Where != "terms[0]" {
 		t.Fatalf("inadmissible term accepted: %+v", r.Failures)
 	}
 	c.Relaxation.Terms = nil
 	c.Relaxation.Normal.Threshold = "0"
-	r, _ = Verify(c, Options{})
+	r, _ = relaxation.Verify(c, relaxation.Options{})
 	if r.Pass || r.Failures[0].Where != "normal_form" {
 		t.Fatalf("wrong threshold accepted: %+v", r.Failures)
+	}
+}
+
+func ratOf(t testing.TB, s string) *big.Rat {
+	r, ok := new(big.Rat).SetString(s)
+	if !ok {
+		t.Fatalf("bad number %q", s)
+	}
+	return r
+}
+
+// BenchmarkVerifyExp verifies a 75-cell certificate with one exp term on
+// one goroutine; the quadrature regimes are built in the first iteration
+// and shared afterwards (see BenchmarkRegimeBuild for their cost).
+func BenchmarkVerifyExp(b *testing.B) {
+	c, err := reltest.BuildCertificate(reltest.BuildOptions{Problem: backflowProblem("lower"),
+		Terms: []certificates.Term{{Kind: "exp", Params: map[string]string{"k": "150"}, Weight: "8.46"}},
+		Bound: "0.06", Lo: "-40", Hi: "16"})
+	if err != nil {
+		b.Fatal(err)
+	}
+	b.ReportMetric(float64(len(c.Relaxation.Cover)), "cells")
+	for b.Loop() {
+		r, err := relaxation.Verify(c, relaxation.Options{Workers: 1})
+		if err != nil || !r.Pass {
+			b.Fatal("verification failed")
+		}
 	}
 }

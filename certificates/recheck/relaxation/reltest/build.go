@@ -1,4 +1,7 @@
-package relaxation
+// Package reltest is test support for the relaxation verifier: a small
+// reference certifier on the verifier's own numerics (BuildCertificate),
+// kept out of the verifier's trusted base (nothing but tests imports it).
+package reltest
 
 import (
 	"errors"
@@ -7,6 +10,7 @@ import (
 
 	"wedgebound/certificates"
 	"wedgebound/certificates/recheck/checknum"
+	"wedgebound/certificates/recheck/relaxation"
 	"wedgebound/interval"
 )
 
@@ -31,12 +35,12 @@ type BuildOptions struct {
 // support the claim, closes the cover with the tail lemma of Model.Tail and
 // seals the result. It fails when the claim cannot be supported that way.
 func BuildCertificate(o BuildOptions) (*certificates.Certificate, error) {
-	nf, err := Recompute(o.Problem)
+	nf, err := relaxation.Recompute(o.Problem)
 	if err != nil {
 		return nil, err
 	}
-	edge := Edge(o.Problem.Edge)
-	m, err := NewModel(interval.F{}, edge, o.Terms)
+	edge := relaxation.Edge(o.Problem.Edge)
+	m, err := relaxation.NewModel(interval.F{}, edge, o.Terms)
 	if err != nil {
 		return nil, err
 	}
@@ -56,7 +60,7 @@ func BuildCertificate(o BuildOptions) (*certificates.Certificate, error) {
 		return nil, errors.New("the cover must contain 0 in its interior")
 	}
 	thr := new(big.Float).SetPrec(200).SetRat(bound)
-	if edge == Lower {
+	if edge == relaxation.Lower {
 		thr.Neg(thr)
 	}
 	okEnc := func(x interval.F) bool {
@@ -64,7 +68,7 @@ func BuildCertificate(o BuildOptions) (*certificates.Certificate, error) {
 		if l == nil {
 			return false
 		}
-		if edge == Lower {
+		if edge == relaxation.Lower {
 			return l.Cmp(thr) >= 0
 		}
 		return h.Cmp(thr) <= 0
@@ -86,7 +90,7 @@ func BuildCertificate(o BuildOptions) (*certificates.Certificate, error) {
 	var cells []certificates.Cell
 	half := big.NewRat(1, 2)
 	for i := range n0 {
-		for _, pc := range Pieces(grid[i], grid[i+1]) {
+		for _, pc := range relaxation.Pieces(grid[i], grid[i+1]) {
 			stack := [][2]*big.Rat{pc}
 			for len(stack) > 0 {
 				p := stack[len(stack)-1]
@@ -130,12 +134,12 @@ func BuildCertificate(o BuildOptions) (*certificates.Certificate, error) {
 			return nil, err
 		}
 		b := l
-		if edge == Upper {
+		if edge == relaxation.Upper {
 			b = h
 		}
 		tails[i] = certificates.Tail{From: checknum.RatText(from), Bound: b, Lemma: "recheck tail lemma (quadrant |J| <= pi/(4|a|), exp terms C(k)/|a|, monotone corner)"}
 	}
-	normal := certificates.NormalForm{A: nf.A.RatString(), B: nf.B.RatString(), D: nf.D.RatString(), Threshold: NoThreshold}
+	normal := certificates.NormalForm{A: nf.A.RatString(), B: nf.B.RatString(), D: nf.D.RatString(), Threshold: relaxation.NoThreshold}
 	for i := range 4 {
 		normal.Map[i] = nf.Map[i].RatString()
 	}
@@ -143,7 +147,7 @@ func BuildCertificate(o BuildOptions) (*certificates.Certificate, error) {
 		normal.Threshold = nf.Threshold.RatString()
 	}
 	stmt := fmt.Sprintf("lambda_min(M(s)) >= -%s for every real s", o.Bound)
-	if edge == Upper {
+	if edge == relaxation.Upper {
 		stmt = fmt.Sprintf("lambda_max(M(s)) <= %s for every real s", o.Bound)
 	}
 	c := &certificates.Certificate{
@@ -157,33 +161,11 @@ func BuildCertificate(o BuildOptions) (*certificates.Certificate, error) {
 			Cover:         cells,
 			Below:         tails[0],
 			Above:         tails[1],
-			Budget:        m.budget(),
+			Budget:        m.Budget(),
 		},
 	}
 	if err := certificates.Seal(c); err != nil {
 		return nil, err
 	}
 	return c, nil
-}
-
-// budget returns the largest quadrature and truncation terms added to any
-// B entry so far (errQ and errT of a regime scaled by |w|/(pi |k+2i|));
-// the tail lemmas and rounding add no separate term (interval arithmetic
-// carries the rounding).
-func (m *Model[T]) budget() certificates.Budget {
-	q, t := m.like.Int(0), m.like.Int(0)
-	for i, e := range m.terms {
-		scale := m.weights[i].Abs().Quo(e.mod.Mul(m.like.Pi()))
-		e.mu.Lock()
-		for _, slot := range e.regimes {
-			if slot.r != nil {
-				q = q.Max(interval.Upper(slot.r.errQ.Mul(scale)))
-				t = t.Max(interval.Upper(slot.r.errT.Mul(scale)))
-			}
-		}
-		e.mu.Unlock()
-	}
-	_, qs, _ := interval.Decimals(q, 3)
-	_, ts, _ := interval.Decimals(t, 3)
-	return certificates.Budget{Quadrature: qs, Truncation: ts, Tails: "0", Rounding: "0"}
 }
