@@ -217,84 +217,144 @@ func (v *stripVerifier) rat(txt string) *big.Rat {
 
 func ratOfFloat(x float64) *big.Rat { r, _ := new(big.Float).SetFloat64(x).Rat(nil); return r }
 
+// stripProof carries what one proof step hands to the next.
+type stripProof struct {
+	epsOwn *big.Rat // the verifier's own bound on ||K_alpha - K_alpha_used||
+
+	auF   interval.F // alpha_used
+	N     int        // basis size
+	coefB [2][]interval.B
+	coefF [2][]interval.F
+	norm2 [2]*big.Rat // squared norms of the witnesses' coefficients
+
+	n    int // the rule has n+1 nodes
+	qEta float64
+	rule *stripRule
+	nd   *stripNodes
+	rows *stripRows
+
+	At          [][]float64 // float kernel matrix
+	wrad        [2][]interval.F
+	psiMid      [2][]float64
+	psiRad      [2][]float64
+	radA, normA interval.F
+	quadG       interval.F
+	quadW       [2]interval.F
+	R           [2]interval.F // the witnesses' Rayleigh quotients
+	advLoOwn    *big.Rat
+	defLoOwn    *big.Rat
+	tOwn        *big.Rat // the verifier's own bound on the discarded part
+	lowOK       bool
+	highOK      bool
+	lowP, highP float64
+}
+
+// run performs the proof steps in the order of the package comment; a step
+// returns false when the later steps cannot be checked.
 func (v *stripVerifier) run() {
-	s := v.s
 	if !v.readNumbers() {
 		return
 	}
+	p := &stripProof{}
+	for _, step := range []func(*stripProof) bool{
+		v.stepAlpha,      // 1. alpha and alpha_rounding
+		v.stepRule,       //    the verifier's rule and basis rows
+		v.stepKernel,     //    the kernel matrix and its bounds
+		v.stepRemainders, //    quadrature remainders
+		v.stepWitnesses,  // 2. witnesses and the lower ends
+		v.stepDiscarded,  // 3. the discarded part
+		v.stepGalerkin,   // 4. the Galerkin eigenvalue bounds
+		v.stepOuterEnds,  // 5. the upper ends, and refutations
+	} {
+		if !step(p) {
+			return
+		}
+	}
+	if len(v.res.Failures) == 0 {
+		v.res.Recomputed = fmt.Sprintf("A(alpha) in [%s, %s], sup spec in [%s, %s]",
+			v.sr.AdvantageProved.Lower, v.sr.AdvantageProved.Upper, v.sr.DeficitProved.Lower, v.sr.DeficitProved.Upper)
+	}
+}
+
+// stepAlpha is proof step 1: alpha re-derived, its recorded enclosure and
+// the alpha rounding term (checkAlpha), giving the verifier's own bound on
+// ||K_alpha - K_alpha_used||.
+func (v *stripVerifier) stepAlpha(p *stripProof) bool {
 	q, ok := v.checkAlpha()
 	v.lap("alpha")
 	if !ok {
-		return
+		return false
 	}
-	// eps: the verifier's own bound on ||K_alpha - K_alpha_used||.
 	_, qh := q.Endpoints()
-	epsOwn, _ := qh.Rat(nil)
-	e := v.rat(s.Errors.AlphaRounding)
-	t := v.rat(s.Errors.DiscardedPart)
-	gl := v.rat(s.GalerkinLowest)
-	gh := v.rat(s.GalerkinHighest)
+	p.epsOwn, _ = qh.Rat(nil) // exact: a big.Float is a rational
+	return true
+}
 
+// stepRule reads alpha_used and the witnesses' coefficients and builds the
+// verifier's Clenshaw-Curtis rule with the Legendre rows at its nodes.
+func (v *stripVerifier) stepRule(p *stripProof) bool {
+	s := v.s
 	au := v.rat(s.AlphaUsed)
 	auF, err := interval.F{}.Decimal(s.AlphaUsed)
 	if err != nil || !auF.IsFinite() {
 		v.fail(recheck.Failure{Where: "alpha_used", Message: "alpha_used cannot be enclosed"})
-		return
+		return false
 	}
 	if auF.Hi() > stripMaxAlpha {
 		v.fail(recheck.Failure{Where: "alpha_used", Message: fmt.Sprintf("alpha_used %s is above %g, beyond what this verifier handles", s.AlphaUsed, stripMaxAlpha)})
-		return
+		return false
 	}
+	p.auF = auF
 	auB := ratB(au, stripNodePrec)
 	N := s.BasisSize
-
-	// Witness coefficients.
-	var coefB [2][]interval.B
-	var coefF [2][]interval.F
-	var norm2 [2]*big.Rat
+	p.N = N
 	for w, wit := range []certificates.StripWitness{s.AdvantageWitness, s.DeficitWitness} {
-		coefB[w] = make([]interval.B, N)
-		coefF[w] = make([]interval.F, N)
-		norm2[w] = new(big.Rat)
+		p.coefB[w] = make([]interval.B, N)
+		p.coefF[w] = make([]interval.F, N)
+		p.norm2[w] = new(big.Rat)
 		for j, cs := range wit.Coefficients {
 			r := v.rat(cs)
-			coefB[w][j] = ratB(r, stripNodePrec)
-			coefF[w][j] = stripToF(coefB[w][j])
-			norm2[w].Add(norm2[w], new(big.Rat).Mul(r, r))
+			p.coefB[w][j] = ratB(r, stripNodePrec)
+			p.coefF[w][j] = stripToF(p.coefB[w][j])
+			p.norm2[w].Add(p.norm2[w], new(big.Rat).Mul(r, r))
 		}
 	}
-
-	// The rule.
-	n, qEta, ok := planStripRule(auF.Mid().Lo(), N, coefF)
+	n, qEta, ok := planStripRule(auF.Mid().Lo(), N, p.coefF)
 	if !ok {
 		v.fail(recheck.Failure{Where: "basis_size", Message: fmt.Sprintf("the verifier's rule for basis size %d at alpha %s would need more than %d nodes", N, s.AlphaUsed, stripMaxNodes)})
-		return
+		return false
 	}
 	rule, err := newStripRule(n, v.opt.Workers)
 	if err != nil {
 		v.fail(recheck.Failure{Where: "rule", Message: err.Error()})
-		return
+		return false
 	}
+	p.n, p.qEta, p.rule = n, qEta, rule
 	v.sr.RuleNodes = n + 1
-	nd := rule.nodeData(auB, v.opt.Workers)
-	rows := rule.rows(N, coefB, v.opt.Workers)
+	p.nd = rule.nodeData(auB, v.opt.Workers)
+	p.rows = rule.rows(N, p.coefB, v.opt.Workers)
 	v.lap("rule")
+	return true
+}
 
-	// The kernel matrix At and its bounds.
-	M := n + 1
+// stepKernel evaluates the kernel matrix at the rule's nodes (float
+// midpoints At with bounds on their distance radA to the exact matrix and
+// on its norm normA) and the witnesses' weighted radii.
+func (v *stripVerifier) stepKernel(p *stripProof) bool {
+	M := p.n + 1
+	auF, nd, rule, rows := p.auF, p.nd, p.rule, p.rows
 	At := make([][]float64, M)
 	radRow := make([]interval.F, M)
 	normRow := make([]interval.F, M)
-	var wrad [2][]interval.F
-	var psiMid, psiRad [2][]float64
-	for w := range wrad {
-		wrad[w] = make([]interval.F, M)
-		psiMid[w] = make([]float64, M)
-		psiRad[w] = make([]float64, M)
+	for w := range p.wrad {
+		p.wrad[w] = make([]interval.F, M)
+		p.psiMid[w] = make([]float64, M)
+		p.psiRad[w] = make([]float64, M)
 		for a := 0; a < M; a++ {
-			psiMid[w][a], psiRad[w][a] = midRad(rows.psi[w][a])
+			p.psiMid[w][a], p.psiRad[w][a] = midRad(rows.psi[w][a])
 		}
 	}
+	psiMid, wrad := p.psiMid, p.wrad
 	sqwF := make([]interval.F, M)
 	for a := range sqwF {
 		sqwF[a] = stripToF(rule.sqw[a])
@@ -331,28 +391,38 @@ func (v *stripVerifier) run() {
 		radA2 = radA2.Add(radRow[a])
 		normA2 = normA2.Add(normRow[a])
 	}
-	radA := interval.PointF(radA2.Sqrt().Hi())
-	normA := interval.PointF(normA2.Sqrt().Hi())
+	p.radA = interval.PointF(radA2.Sqrt().Hi())
+	p.normA = interval.PointF(normA2.Sqrt().Hi())
+	p.At = At
 	v.lap("kernel")
+	return true
+}
 
-	// Quadrature remainders.
-	logMk := newKernelSup(auF, qEta, 0).bound(1e-3)
-	logC := stripLogC(n, rule.wsum, qEta, logMk)
-	quadG := galerkinQuadF(logC, N, qEta, rule.wsum)
-	var quadW [2]interval.F
-	for w := range quadW {
-		quadW[w] = witnessQuadF(logC, coefF[w], qEta, rule.wsum)
+// stepRemainders bounds the rule's remainders for the Galerkin entries and
+// for the witnesses' quadratic forms.
+func (v *stripVerifier) stepRemainders(p *stripProof) bool {
+	logMk := newKernelSup(p.auF, p.qEta, 0).bound(1e-3)
+	logC := stripLogC(p.n, p.rule.wsum, p.qEta, logMk)
+	p.quadG = galerkinQuadF(logC, p.N, p.qEta, p.rule.wsum)
+	for w := range p.quadW {
+		p.quadW[w] = witnessQuadF(logC, p.coefF[w], p.qEta, p.rule.wsum)
 	}
-	if !quadG.IsFinite() || !quadW[0].IsFinite() || !quadW[1].IsFinite() {
+	if !p.quadG.IsFinite() || !p.quadW[0].IsFinite() || !p.quadW[1].IsFinite() {
 		v.fail(recheck.Failure{Where: "rule", Message: "the verifier's quadrature remainder bound is not finite"})
-		return
+		return false
 	}
 	v.lap("remainders")
+	return true
+}
 
-	// 2. Witnesses.
-	var R [2]interval.F
+// stepWitnesses is proof step 2: the witnesses' Rayleigh quotients, their
+// recorded enclosures, and the lower ends of both brackets.
+func (v *stripVerifier) stepWitnesses(p *stripProof) bool {
+	s := v.s
+	e := v.rat(s.Errors.AlphaRounding)
+	R := &p.R
 	for w := range R {
-		R[w] = v.rayleigh(At, psiMid[w], psiRad[w], wrad[w], normA, radA, quadW[w], norm2[w])
+		R[w] = v.rayleigh(p.At, p.psiMid[w], p.psiRad[w], p.wrad[w], p.normA, p.radA, p.quadW[w], p.norm2[w])
 	}
 	v.sr.AdvantageRayleigh = bracketOf(R[0], 17)
 	v.sr.DeficitRayleigh = bracketOf(R[1], 17)
@@ -368,23 +438,15 @@ func (v *stripVerifier) run() {
 		}
 	}
 	zero := new(big.Rat)
-	ratMaxR := func(a, b *big.Rat) *big.Rat {
-		if a.Cmp(b) >= 0 {
-			return a
-		}
-		return b
-	}
-	add := func(a, b *big.Rat) *big.Rat { return new(big.Rat).Add(a, b) }
-	sub := func(a, b *big.Rat) *big.Rat { return new(big.Rat).Sub(a, b) }
 	rMinHi, rMaxLo := ratOfFloat(R[0].Hi()), ratOfFloat(R[1].Lo())
 	// Proved lower ends, with the recorded e (checked above) and with the
 	// verifier's own eps.
 	advLoRec := ratMaxR(new(big.Rat).Neg(add(rMinHi, e)), zero)
 	defLoRec := ratMaxR(sub(rMaxLo, e), zero)
-	advLoOwn := ratMaxR(new(big.Rat).Neg(add(rMinHi, epsOwn)), zero)
-	defLoOwn := ratMaxR(sub(rMaxLo, epsOwn), zero)
-	v.sr.AdvantageProved.Lower = ratDown17(advLoOwn)
-	v.sr.DeficitProved.Lower = ratDown17(defLoOwn)
+	p.advLoOwn = ratMaxR(new(big.Rat).Neg(add(rMinHi, p.epsOwn)), zero)
+	p.defLoOwn = ratMaxR(sub(rMaxLo, p.epsOwn), zero)
+	v.sr.AdvantageProved.Lower = ratDown17(p.advLoOwn)
+	v.sr.DeficitProved.Lower = ratDown17(p.defLoOwn)
 	advLo, defLo := v.rat(s.Advantage.Lower), v.rat(s.Deficit.Lower)
 	if advLo.Cmp(advLoRec) > 0 {
 		v.fail(recheck.Failure{Where: "advantage", Bound: true, By: checknum.RatDecimal(sub(advLo, advLoRec)),
@@ -397,31 +459,43 @@ func (v *stripVerifier) run() {
 				s.Deficit.Lower, ratDown17(defLoRec), v.sr.DeficitRayleigh.Lower, s.Errors.AlphaRounding)})
 	}
 	v.lap("witnesses")
+	return true
+}
 
-	// 3. Discarded part.
-	tailOwn, tailNote := v.discarded(auF, N)
+// stepDiscarded is proof step 3: discarded_part >= ||k - P k P||.
+func (v *stripVerifier) stepDiscarded(p *stripProof) bool {
+	s := v.s
+	t := v.rat(s.Errors.DiscardedPart)
+	tailOwn, tailNote := v.discarded(p.auF, p.N)
 	if tailNote != "" {
 		v.note(tailNote)
 	}
 	v.sr.Discarded = sciUp(tailOwn.Hi())
-	tOwn := ratOfFloat(tailOwn.Hi())
-	if tOwn.Cmp(t) > 0 {
-		v.fail(recheck.Failure{Where: "errors.discarded_part", By: checknum.RatDecimal(sub(tOwn, t)),
+	p.tOwn = ratOfFloat(tailOwn.Hi())
+	if p.tOwn.Cmp(t) > 0 {
+		v.fail(recheck.Failure{Where: "errors.discarded_part", By: checknum.RatDecimal(sub(p.tOwn, t)),
 			Message: fmt.Sprintf("cannot prove discarded_part %s >= ||k - P k P||: the verifier's bound is %s", s.Errors.DiscardedPart, v.sr.Discarded)})
 	}
 	v.lap("discarded")
+	return true
+}
 
-	// 4. Galerkin bounds.
-	gk := stripGalerkin(At, rows, quadG, radA, normA, v.opt.Workers)
-	At = nil
+// stepGalerkin is proof step 4: galerkin_lowest <= lambda_min(G) and
+// lambda_max(G) <= galerkin_highest, or their refutation by a witness.
+func (v *stripVerifier) stepGalerkin(p *stripProof) bool {
+	s := v.s
+	gl, gh := v.rat(s.GalerkinLowest), v.rat(s.GalerkinHighest)
+	R := p.R
+	gk := stripGalerkin(p.At, p.rows, p.quadG, p.radA, p.normA, v.opt.Workers)
+	p.At = nil
 	v.sr.GalerkinDistance = sciUp(gk.delta.Hi())
 	glF, err1 := checknum.Enclose(interval.F{}, gl)
 	ghF, err2 := checknum.Enclose(interval.F{}, gh)
 	if err := errors.Join(err1, err2); err != nil {
 		v.fail(recheck.Failure{Where: "galerkin_lowest", Message: "the recorded Galerkin bounds cannot be enclosed: " + err.Error()})
-		return
+		return false
 	}
-	lowOK, highOK := false, false
+	var lowOK, highOK bool
 	var lowP, highP float64
 	if R[0].Hi() < glF.Lo() {
 		v.fail(recheck.Failure{Where: "galerkin_lowest", Refuted: true, By: fmtFloat(glF.Lo() - R[0].Hi()),
@@ -449,15 +523,23 @@ func (v *stripVerifier) run() {
 	if highOK {
 		v.sr.HighestProved = interval.DecimalUp(new(big.Float).SetFloat64(highP), 17)
 	}
+	p.lowOK, p.highOK, p.lowP, p.highP = lowOK, highOK, lowP, highP
 	v.lap("galerkin")
+	return true
+}
 
-	// 5. Outer ends from the recorded numbers.
-	ratMinR := func(a, b *big.Rat) *big.Rat {
-		if a.Cmp(b) <= 0 {
-			return a
-		}
-		return b
-	}
+// stepOuterEnds is proof step 5: the recorded upper ends follow from the
+// recorded Galerkin bounds and error terms; the verifier's own upper ends,
+// and the refutations they and the witnesses give.
+func (v *stripVerifier) stepOuterEnds(p *stripProof) bool {
+	s := v.s
+	zero := new(big.Rat)
+	e, t := v.rat(s.Errors.AlphaRounding), v.rat(s.Errors.DiscardedPart)
+	gl, gh := v.rat(s.GalerkinLowest), v.rat(s.GalerkinHighest)
+	advLo, defLo := v.rat(s.Advantage.Lower), v.rat(s.Deficit.Lower)
+	tOwn, epsOwn := p.tOwn, p.epsOwn
+	lowOK, highOK, lowP, highP := p.lowOK, p.highOK, p.lowP, p.highP
+	advLoOwn, defLoOwn := p.advLoOwn, p.defLoOwn
 	advHiRec := add(sub(t, ratMinR(gl, zero)), e)
 	defHiRec := add(add(ratMaxR(gh, zero), t), e)
 	advHi, defHi := v.rat(s.Advantage.Upper), v.rat(s.Deficit.Upper)
@@ -495,11 +577,26 @@ func (v *stripVerifier) run() {
 		v.fail(recheck.Failure{Where: "deficit", Bound: true, Refuted: true, By: checknum.RatDecimal(sub(defLoOwn, defHi)),
 			Message: fmt.Sprintf("the upper end %s is false: the deficit witness proves sup spec K_alpha >= %s", s.Deficit.Upper, ratDown17(defLoOwn))})
 	}
-	if len(v.res.Failures) == 0 {
-		v.res.Recomputed = fmt.Sprintf("A(alpha) in [%s, %s], sup spec in [%s, %s]",
-			v.sr.AdvantageProved.Lower, v.sr.AdvantageProved.Upper, v.sr.DeficitProved.Lower, v.sr.DeficitProved.Upper)
-	}
+	return true
 }
+
+func ratMaxR(a, b *big.Rat) *big.Rat {
+	if a.Cmp(b) >= 0 {
+		return a
+	}
+	return b
+}
+
+func ratMinR(a, b *big.Rat) *big.Rat {
+	if a.Cmp(b) <= 0 {
+		return a
+	}
+	return b
+}
+
+func add(a, b *big.Rat) *big.Rat { return new(big.Rat).Add(a, b) }
+
+func sub(a, b *big.Rat) *big.Rat { return new(big.Rat).Sub(a, b) }
 
 // rayleigh encloses <psi, k psi>/||c||^2 from the midpoints and radii of
 // psi_hat (psi_hat_a = sqrt(w_a/2) psi(x_a)), the float kernel matrix At
