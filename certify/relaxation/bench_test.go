@@ -12,7 +12,7 @@ import (
 // one-term iteration takes several seconds.
 
 func BenchmarkRunOneExp(b *testing.B) {
-	cfg := Config{Problem: regions.Presets["backflow"], Ks: []string{"150"}, Margin: 2e-4}
+	cfg := Config{Problem: regions.Presets["backflow"], Terms: expSpecs([]string{"150"}, nil), Margin: 2e-4}
 	var cells int
 	for b.Loop() {
 		o, err := Run(cfg)

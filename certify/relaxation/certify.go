@@ -25,11 +25,12 @@ import (
 type Config struct {
 	// Problem is the wedge problem as given.
 	Problem regions.Problem
-	// Ks are the decay rates of the exponential profiles e^{-k xp} (exact
-	// decimals); empty means the bare quadrant.
-	Ks []string
-	// Weights, if set, are the exact decimal weights to certify (no search).
-	Weights []string
+	// Terms are the relaxation terms themselves: family kind (any family
+	// registered in regions), exact parameters and exact decimal weight.
+	// Either every weight is given (they are certified as they are) or none
+	// is (Weight "": the weights are searched). Empty means the bare
+	// quadrant. Each term must be admissible (regions.Admissible).
+	Terms []certificates.Term
 	// WeightBound bounds the searched weights (default 50, or max k / 15).
 	WeightBound float64
 	// Margin is how far above the float candidate the cover aims (default
@@ -93,10 +94,14 @@ func run[T interval.Real[T]](cfg Config, prec T) (*Outcome, error) {
 	u0, ok := nf.Threshold()
 	like := interval.PointF(0)
 	var terms []regions.Term[interval.F]
-	for _, k := range cfg.Ks {
-		t, err := regions.NewTerm(like, "exp", map[string]string{"k": k})
+	var weights []string
+	for _, ct := range cfg.Terms {
+		t, err := regions.NewTerm(like, ct.Kind, ct.Params)
 		if err != nil {
 			return nil, err
+		}
+		if ct.Weight != "" {
+			weights = append(weights, ct.Weight)
 		}
 		if err := regions.Admissible(t.Kind(), t.Start(), u0, ok); err != nil {
 			return nil, err
@@ -107,15 +112,19 @@ func run[T interval.Real[T]](cfg Config, prec T) (*Outcome, error) {
 	if progress == nil {
 		progress = func(string, int, int) {}
 	}
-	weights := cfg.Weights
 	candidate := math.NaN()
 	if len(weights) == 0 && len(terms) > 0 {
 		wb := cfg.WeightBound
 		if wb == 0 {
 			wb = 50
 			for _, t := range terms {
-				k, _ := like.Decimal(t.Params()["k"])
-				wb = math.Max(wb, k.Hi()/15)
+				if k, ok := t.Params()["k"]; ok && t.Kind() == "exp" {
+					kv, err := like.Decimal(k)
+					if err != nil {
+						return nil, err
+					}
+					wb = math.Max(wb, kv.Hi()/15)
+				}
 			}
 		}
 		iter := 0
@@ -136,7 +145,9 @@ func run[T interval.Real[T]](cfg Config, prec T) (*Outcome, error) {
 		if _, err := regions.ParseRat(s); err != nil {
 			return nil, fmt.Errorf("weight %d: %v", i, err)
 		}
-		w[i], _ = like.Decimal(s)
+		if w[i], err = like.Decimal(s); err != nil {
+			return nil, fmt.Errorf("weight %d: %v", i, err)
+		}
 	}
 	rel := regions.Relaxation[interval.F]{Terms: terms, Weights: w}
 	// The same relaxation at the cover's precision.

@@ -223,7 +223,7 @@ func TestRunQuadrantUpper(t *testing.T) {
 // default margin 2e-4), and stay above both published estimates of the
 // backflow constant.
 func TestRunOneExp(t *testing.T) {
-	o := runOnce(t, "exp150", Config{Problem: regions.Presets["backflow"], Ks: []string{"150"}, Margin: 2e-4, Workers: 2})
+	o := runOnce(t, "exp150", Config{Problem: regions.Presets["backflow"], Terms: expSpecs([]string{"150"}, nil), Margin: 2e-4, Workers: 2})
 	b := mustF(o.Bound)
 	if b <= backflowEstimate || b <= fewsterEstimate {
 		t.Errorf("bound %v is below a published estimate of the backflow constant (0.0384517 Bracken-Melloy 1994, 0.0384506 Fewster-Kirk-Karakaya 2025): a bug", b)
@@ -306,9 +306,9 @@ func TestRunReposed(t *testing.T) {
 			t.Errorf("%s: bare-quadrant claim %s, backflow %s", name, o.Certificate.Relaxation.Claim.Bound, ref.Certificate.Relaxation.Claim.Bound)
 		}
 	}
-	ref = runOnce(t, "exp150", Config{Problem: problems["backflow"], Ks: []string{"150"}, Margin: 2e-4, Workers: 2})
+	ref = runOnce(t, "exp150", Config{Problem: problems["backflow"], Terms: expSpecs([]string{"150"}, nil), Margin: 2e-4, Workers: 2})
 	for _, name := range []string{"projectile", "tilted"} {
-		o := runOnce(t, "exp150-"+name, Config{Problem: problems[name], Ks: []string{"150"}, Margin: 2e-4, Workers: 2})
+		o := runOnce(t, "exp150-"+name, Config{Problem: problems[name], Terms: expSpecs([]string{"150"}, nil), Margin: 2e-4, Workers: 2})
 		a, b := o.Certificate.Relaxation, ref.Certificate.Relaxation
 		if a.Claim.Bound != b.Claim.Bound || a.Terms[0].Weight != b.Terms[0].Weight {
 			t.Errorf("%s: claim %s (weight %s), backflow %s (weight %s)", name, a.Claim.Bound, a.Terms[0].Weight, b.Claim.Bound, b.Terms[0].Weight)
@@ -329,7 +329,7 @@ func TestRunReposed(t *testing.T) {
 // different targets.)
 func TestRunZeroWeights(t *testing.T) {
 	q := runOnce(t, "quadrant", Config{Problem: regions.Presets["backflow"], Margin: quadrantMargin, Workers: 2})
-	o := runOnce(t, "exp150-zero", Config{Problem: regions.Presets["backflow"], Ks: []string{"150"}, Weights: []string{"0"}, Margin: quadrantMargin, Workers: 2})
+	o := runOnce(t, "exp150-zero", Config{Problem: regions.Presets["backflow"], Terms: expSpecs([]string{"150"}, []string{"0"}), Margin: quadrantMargin, Workers: 2})
 	zb, qb := mustF(o.Bound), mustF(q.Bound)
 	if zb < quadrant20 || zb > quadrant20+quadrantMargin+1e-5 {
 		t.Errorf("zero weights: claim %v, want in [%v, %v]", zb, quadrant20, quadrant20+quadrantMargin+1e-5)
@@ -354,10 +354,10 @@ func TestRunErrors(t *testing.T) {
 		cfg  Config
 		want string
 	}{
-		{"vertex inside with terms", Config{Problem: inside, Ks: []string{"150"}}, "xp >= d^2/(4ab)"},
-		{"weights count", Config{Problem: regions.Presets["backflow"], Ks: []string{"150"}, Weights: []string{"1", "2"}}, "2 weights given for 1 terms"},
-		{"bad weight", Config{Problem: regions.Presets["backflow"], Ks: []string{"150"}, Weights: []string{"1e5000"}}, "weight 0"},
-		{"bad k", Config{Problem: regions.Presets["backflow"], Ks: []string{"-1"}}, "positive"},
+		{"vertex inside with terms", Config{Problem: inside, Terms: expSpecs([]string{"150"}, nil)}, "xp >= d^2/(4ab)"},
+		{"weights count", Config{Problem: regions.Presets["backflow"], Terms: []certificates.Term{expSpecs([]string{"150"}, []string{"1"})[0], expSpecs([]string{"1000"}, nil)[0]}}, "1 weights given for 2 terms"},
+		{"bad weight", Config{Problem: regions.Presets["backflow"], Terms: expSpecs([]string{"150"}, []string{"1e5000"})}, "weight 0"},
+		{"bad k", Config{Problem: regions.Presets["backflow"], Terms: expSpecs([]string{"-1"}, nil)}, "positive"},
 		{"degenerate problem", Config{Problem: bad}, "parallel"},
 	} {
 		_, err := Run(c.cfg)
@@ -397,4 +397,17 @@ func TestRunWriteRead(t *testing.T) {
 	if len(entries) != 1 {
 		t.Errorf("directory holds %d entries after an atomic write, want 1", len(entries))
 	}
+}
+
+// expSpecs is the exponential profiles with decay rates ks and the given
+// weights (nil: searched).
+func expSpecs(ks, weights []string) []certificates.Term {
+	out := make([]certificates.Term, len(ks))
+	for i, k := range ks {
+		out[i] = certificates.Term{Kind: "exp", Params: map[string]string{"k": k}}
+		if weights != nil {
+			out[i].Weight = weights[i]
+		}
+	}
+	return out
 }

@@ -18,7 +18,7 @@ import (
 // (Consistency checks of the tool against itself; the bound's external
 // checks are in certify_test.go.)
 func TestShardsMergeToWholeRun(t *testing.T) {
-	base := Config{Problem: regions.Presets["backflow"], Ks: []string{"150"}, Margin: 2e-4}
+	base := Config{Problem: regions.Presets["backflow"], Terms: expSpecs([]string{"150"}, nil), Margin: 2e-4}
 	run := func(workers, shard, shards int) *certificates.Certificate {
 		cfg := base
 		cfg.Workers, cfg.Shard, cfg.Shards = workers, shard, shards

@@ -14,8 +14,7 @@ func BenchmarkCertifyWorkers(b *testing.B) {
 	for _, w := range []int{1, 2} {
 		b.Run(fmt.Sprintf("workers=%d", w), func(b *testing.B) {
 			for range b.N {
-				_, err := Run(Config{Problem: regions.Presets["backflow"], Ks: []string{"4.9", "1000"},
-					Weights: []string{"0.152944", "39.1613"}, Margin: 2e-5, Workers: w})
+				_, err := Run(Config{Problem: regions.Presets["backflow"], Terms: expSpecs([]string{"4.9", "1000"}, []string{"0.152944", "39.1613"}), Margin: 2e-5, Workers: w})
 				if err != nil {
 					b.Fatal(err)
 				}

@@ -78,11 +78,22 @@ func runCertify(args []string, stdout, stderr io.Writer) int {
 		}
 	}
 	cfg := relaxation.Config{Problem: p, WeightBound: *weightBound, Margin: *margin, Workers: *workers, Prec: uint(*prec)}
+	var ks, ws []string
 	if s := strings.TrimSpace(*exps); s != "" && s != "none" {
-		cfg.Ks = splitList(s)
+		ks = splitList(s)
 	}
 	if *weights != "" {
-		cfg.Weights = splitList(*weights)
+		ws = splitList(*weights)
+		if len(ws) != len(ks) {
+			return fail("--weights: %d weights given for %d terms", len(ws), len(ks))
+		}
+	}
+	for i, k := range ks {
+		t := certificates.Term{Kind: "exp", Params: map[string]string{"k": k}}
+		if ws != nil {
+			t.Weight = ws[i]
+		}
+		cfg.Terms = append(cfg.Terms, t)
 	}
 	if *shard != "" {
 		var i, n int

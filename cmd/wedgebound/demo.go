@@ -135,7 +135,7 @@ func runDemo(args []string, stdout, stderr io.Writer) int {
 
 	// (b) Certify with one exponential profile.
 	bar := newProgress(stderr, false)
-	res, err := relaxation.Run(relaxation.Config{Problem: p, Ks: []string{plan.k}, Margin: plan.margin, Workers: *workers, Progress: bar.update})
+	res, err := relaxation.Run(relaxation.Config{Problem: p, Terms: []certificates.Term{{Kind: "exp", Params: map[string]string{"k": plan.k}}}, Margin: plan.margin, Workers: *workers, Progress: bar.update})
 	bar.done()
 	if err != nil {
 		return fail(1, "certify: %v", err)
