@@ -22,10 +22,10 @@ func TestRunHighPrecision(t *testing.T) {
 	if os.Getenv("WEDGEBOUND_SLOW") != "1" {
 		t.Skip("set WEDGEBOUND_SLOW=1")
 	}
-	ref := runOnce(t, "exp150", Config{Problem: regions.Presets["backflow"], Ks: []string{"150"}, Margin: 2e-4, Workers: 2})
+	ref := runOnce(t, "exp150", Config{Problem: regions.Presets["backflow"], Terms: expSpecs([]string{"150"}, nil), Margin: 2e-4, Workers: 2})
 	w := []string{ref.Certificate.Relaxation.Terms[0].Weight}
 	for _, p := range []uint{128, 256} {
-		o, err := Run(Config{Problem: regions.Presets["backflow"], Ks: []string{"150"}, Weights: w, Margin: 2e-4, Workers: 2, Prec: p})
+		o, err := Run(Config{Problem: regions.Presets["backflow"], Terms: expSpecs([]string{"150"}, w), Margin: 2e-4, Workers: 2, Prec: p})
 		if err != nil {
 			t.Fatalf("%d bits: %v", p, err)
 		}
