@@ -43,6 +43,7 @@ type Certificate struct {
 	Flight     *Flight     `json:"flight,omitempty"`
 	Precession *Precession `json:"precession,omitempty"`
 	Matched    *Matched    `json:"matched,omitempty"`
+	Witness    *Witness    `json:"witness,omitempty"`
 	// SHA256 is the hex SHA-256 of the canonical encoding of the certificate
 	// with this field empty.
 	SHA256 string `json:"sha256"`
@@ -192,7 +193,7 @@ func (c *Certificate) validate() error {
 		return errors.New("missing tool name or version")
 	}
 	sections := 0
-	for _, set := range []bool{c.Relaxation != nil, c.Strip != nil, c.Flight != nil, c.Precession != nil, c.Matched != nil} {
+	for _, set := range []bool{c.Relaxation != nil, c.Strip != nil, c.Flight != nil, c.Precession != nil, c.Matched != nil, c.Witness != nil} {
 		if set {
 			sections++
 		}
@@ -223,6 +224,11 @@ func (c *Certificate) validate() error {
 			return errors.New("a matched certificate must hold exactly the matched section")
 		}
 		return c.Matched.validate()
+	case KindWitness:
+		if c.Witness == nil || sections != 1 {
+			return errors.New("a witness certificate must hold exactly the witness section")
+		}
+		return c.Witness.validate()
 	}
 	return fmt.Errorf("unknown certificate kind %q", c.Kind)
 }

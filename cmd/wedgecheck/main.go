@@ -52,6 +52,7 @@ import (
 	"wedgebound/certificates/recheck/precession"
 	"wedgebound/certificates/recheck/relaxation"
 	"wedgebound/certificates/recheck/strip"
+	"wedgebound/certificates/recheck/witness"
 )
 
 // Exit statuses.
@@ -239,6 +240,8 @@ func printText(w io.Writer, r fileReport) {
 		printStripText(w, r, d)
 	case *precession.Detail:
 		printPrecessionText(w, r, d)
+	case *witness.Detail:
+		printWitnessText(w, r, d)
 	default:
 		printGenericText(w, r)
 	}
