@@ -78,6 +78,19 @@ func runReport(args []string, stdout, stderr io.Writer) int {
 		io.WriteString(stdout, text)
 		return 0
 	}
+	if ws, ok, err := readWitnessReports(fs.Args()); err != nil {
+		return fail(2, "%v", err)
+	} else if ok {
+		text := renderWitnessReport(*format, *standalone, ws)
+		if *out != "" {
+			if err := certificates.WriteAtomic(*out, []byte(text)); err != nil {
+				return fail(1, "writing %s: %v", *out, err)
+			}
+			return 0
+		}
+		io.WriteString(stdout, text)
+		return 0
+	}
 	var items []reportItem
 	var brackets []bracketItem
 	for _, f := range fs.Args() {

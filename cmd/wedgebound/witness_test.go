@@ -68,3 +68,24 @@ func TestWitnessSmallRun(t *testing.T) {
 		t.Errorf("wigner plot: %v", err)
 	}
 }
+
+// report: the witness certificate's summary and table; mixing kinds is
+// refused.
+func TestWitnessReport(t *testing.T) {
+	rep := func(args []string, out, errb *bytes.Buffer) int { return runReport(args, out, errb) }
+	code, out, errs := runCmd(rep, "../../testdata/witness-small.json")
+	if code != 0 || !strings.Contains(out, "claim: c_bm >= 0.037219145") {
+		t.Fatalf("exit %d: %s %s", code, out, errs)
+	}
+	code, out, _ = runCmd(rep, "--format", "markdown", "../../testdata/witness-small.json")
+	if code != 0 || !strings.Contains(out, "| 0.037219145 |") {
+		t.Errorf("markdown: %s", out)
+	}
+	code, out, _ = runCmd(rep, "--format", "latex", "--standalone", "../../testdata/witness-small.json")
+	if code != 0 || !strings.Contains(out, "\\begin{tabular}") {
+		t.Errorf("latex: %s", out)
+	}
+	if code, _, _ = runCmd(rep, "../../testdata/witness-small.json", "../../testdata/backflow.json"); code != 2 {
+		t.Errorf("mixed kinds: exit %d", code)
+	}
+}
