@@ -123,12 +123,16 @@ func WriteFile(path string, c *Certificate) error {
 }
 
 // WriteAtomic writes data to path via a temporary file and rename, so a
-// reader sees either the old file or the complete new one.
+// reader sees either the old file or the complete new one. Its errors name
+// path (never the temporary file).
 func WriteAtomic(path string, data []byte) error {
+	if err := CheckWritable(path); err != nil {
+		return err
+	}
 	dir := filepath.Dir(path)
 	f, err := os.CreateTemp(dir, "."+filepath.Base(path)+".tmp*")
 	if err != nil {
-		return err
+		return fmt.Errorf("cannot write %s: %v", path, unwrapPath(err))
 	}
 	tmp := f.Name()
 	err = f.Chmod(0o644)
@@ -146,6 +150,42 @@ func WriteAtomic(path string, data []byte) error {
 	}
 	if err != nil {
 		os.Remove(tmp)
+		return fmt.Errorf("cannot write %s: %v", path, unwrapPath(err))
+	}
+	return nil
+}
+
+// CheckWritable reports, before any work is done, why path cannot receive
+// an output file: it is a directory, its directory does not exist or is not
+// a directory. It does not create anything.
+func CheckWritable(path string) error {
+	if path == "" {
+		return errors.New("empty output path")
+	}
+	if st, err := os.Stat(path); err == nil && st.IsDir() {
+		return fmt.Errorf("cannot write %s: it is a directory", path)
+	}
+	dir := filepath.Dir(path)
+	st, err := os.Stat(dir)
+	if err != nil {
+		return fmt.Errorf("cannot write %s: directory %s: %v", path, dir, unwrapPath(err))
+	}
+	if !st.IsDir() {
+		return fmt.Errorf("cannot write %s: %s is not a directory", path, dir)
+	}
+	return nil
+}
+
+// unwrapPath drops the operation and file name of an *os.PathError or
+// *os.LinkError, which name the temporary file.
+func unwrapPath(err error) error {
+	var pe *os.PathError
+	if errors.As(err, &pe) {
+		return pe.Err
+	}
+	var le *os.LinkError
+	if errors.As(err, &le) {
+		return le.Err
 	}
 	return err
 }

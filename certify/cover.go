@@ -10,6 +10,7 @@ import (
 	"math/big"
 	"runtime"
 	"sync"
+	"sync/atomic"
 
 	"wedgebound/interval"
 	"wedgebound/regions"
@@ -39,6 +40,21 @@ type CoverOptions struct {
 	// Progress, if set, is called with the number of initial pieces done and
 	// their total.
 	Progress func(done, total int)
+	// Status, if set, is called about every 64 cell evaluations and after
+	// every piece with what is really done so far (for progress displays
+	// that should not stand still during a long piece).
+	Status func(CoverStatus)
+}
+
+// CoverStatus is the work done so far by a running Cover.
+type CoverStatus struct {
+	// Pieces is the number of initial pieces, PiecesDone how many are
+	// finished.
+	Pieces, PiecesDone int
+	// Cells is the number of cells proved (accepted) so far, Evaluations
+	// the number of cell enclosures computed (accepted or bisected), Budget
+	// the most evaluations Cover will spend before it gives up.
+	Cells, Evaluations, Budget int
 }
 
 // cellInterval encloses the exact decimal cell [lo, hi] in T.
@@ -62,6 +78,12 @@ func decimals(r *big.Rat) int {
 // accept rejects its enclosure and it is wider than MinWidth. Cells come
 // back in increasing order, contiguous from grid[0] to grid[last]. The
 // result is the same for any number of workers.
+//
+// The work is bounded: at most 2 MaxCells + len(grid) enclosures are
+// computed in all (a bisection tree with MaxCells leaves has fewer than
+// that many nodes), counted as they happen, so a piece that would bisect
+// without end stops at the budget instead of running on; Cover then
+// returns an error saying so.
 func Cover[T interval.Real[T]](like T, f CellFunc[T], grid []*big.Rat, accept func(T) bool, opt CoverOptions) ([]ProvedCell[T], error) {
 	if len(grid) < 2 {
 		return nil, fmt.Errorf("certify: a cover needs at least two breakpoints")
@@ -88,12 +110,34 @@ func Cover[T interval.Real[T]](like T, f CellFunc[T], grid []*big.Rat, accept fu
 	}
 	n := len(grid) - 1
 	parts := make([][]ProvedCell[T], n)
+	budget := int64(2*maxCells + n)
 	var (
 		mu    sync.Mutex
 		total int
 		done  int
 		over  bool
+		evals atomic.Int64
+		cells atomic.Int64
 	)
+	status := func() {
+		if opt.Status != nil {
+			opt.Status(CoverStatus{Pieces: n, PiecesDone: done, Cells: int(cells.Load()), Evaluations: int(evals.Load()), Budget: int(budget)})
+		}
+	}
+	// count is called after every evaluation; it returns false once the
+	// budget is spent.
+	count := func(accepted bool) bool {
+		e := evals.Add(1)
+		if accepted {
+			cells.Add(1)
+		}
+		if e%64 == 0 && opt.Status != nil {
+			mu.Lock()
+			status()
+			mu.Unlock()
+		}
+		return e < budget
+	}
 	For(n, workers, func(i int) {
 		mu.Lock()
 		stop := over
@@ -101,21 +145,22 @@ func Cover[T interval.Real[T]](like T, f CellFunc[T], grid []*big.Rat, accept fu
 		if stop {
 			return
 		}
-		cells := refine(like, f, grid[i], grid[i+1], accept, minW, maxCells)
+		piece, ok := refine(like, f, grid[i], grid[i+1], accept, minW, maxCells, count)
 		mu.Lock()
-		parts[i] = cells
-		total += len(cells)
-		if total > maxCells {
+		parts[i] = piece
+		total += len(piece)
+		if total > maxCells || !ok {
 			over = true
 		}
 		done++
 		if opt.Progress != nil {
 			opt.Progress(done, n)
 		}
+		status()
 		mu.Unlock()
 	})
 	if over {
-		return nil, fmt.Errorf("certify: the cover needs more than %d cells", maxCells)
+		return nil, fmt.Errorf("certify: the cover needs more than %d cells (%d enclosures computed, the work bound)", maxCells, evals.Load())
 	}
 	var out []ProvedCell[T]
 	for _, p := range parts {
@@ -124,11 +169,12 @@ func Cover[T interval.Real[T]](like T, f CellFunc[T], grid []*big.Rat, accept fu
 	return out, nil
 }
 
-// refine bisects [lo, hi] depth-first, left to right.
-func refine[T interval.Real[T]](like T, f CellFunc[T], lo, hi *big.Rat, accept func(T) bool, minW *big.Rat, maxCells int) []ProvedCell[T] {
+// refine bisects [lo, hi] depth-first, left to right. count is called
+// after each evaluation (with whether the cell was accepted); when it
+// returns false the work budget is spent and refine stops with ok false.
+func refine[T interval.Real[T]](like T, f CellFunc[T], lo, hi *big.Rat, accept func(T) bool, minW *big.Rat, maxCells int, count func(accepted bool) bool) (out []ProvedCell[T], ok bool) {
 	type span struct{ lo, hi *big.Rat }
 	stack := []span{{lo, hi}}
-	var out []ProvedCell[T]
 	half := big.NewRat(1, 2)
 	// Stopping at maxCells+1 cells leaves the piece incomplete, but then the
 	// caller's total exceeds maxCells and Cover returns an error.
@@ -137,7 +183,11 @@ func refine[T interval.Real[T]](like T, f CellFunc[T], lo, hi *big.Rat, accept f
 		stack = stack[:len(stack)-1]
 		v := f(cellInterval(like, c.lo, c.hi))
 		w := new(big.Rat).Sub(c.hi, c.lo)
-		if accept(v) || w.Cmp(minW) <= 0 {
+		done := accept(v) || w.Cmp(minW) <= 0
+		if !count(done) {
+			return out, false
+		}
+		if done {
 			out = append(out, ProvedCell[T]{Lo: c.lo, Hi: c.hi, Value: v})
 			continue
 		}
@@ -145,5 +195,5 @@ func refine[T interval.Real[T]](like T, f CellFunc[T], lo, hi *big.Rat, accept f
 		mid.Mul(mid, half)
 		stack = append(stack, span{mid, c.hi}, span{c.lo, mid})
 	}
-	return out
+	return out, true
 }

@@ -54,6 +54,13 @@ type ExtremeResult[T interval.Real[T]] struct {
 // Solve encloses the extremum. The inner side comes from a point value
 // f(s*) at a located near-extremal s*; the outer side is the worst
 // enclosure over a cover of [Lo, Hi] together with Outside.
+//
+// The located s* may be a local extremum only (f can have several of
+// nearly equal depth). Cells whose enclosure lies beyond the inner value
+// by more than Eps can then never meet the target; instead of bisecting
+// them down to MinWidth, a cell is also accepted once its enclosure is
+// narrower than Eps/4, and after the cover the inner value is taken from
+// the midpoint of the most extreme cell when that is better than f(s*).
 func (x Extreme[T]) Solve(like T) (ExtremeResult[T], error) {
 	sign := 1.0
 	if x.Max {
@@ -101,13 +108,17 @@ func (x Extreme[T]) Solve(like T) (ExtremeResult[T], error) {
 		return ExtremeResult[T]{}, fmt.Errorf("certify: the point value at the extremum is not finite")
 	}
 	grid := uniformGrid(x.Lo, x.Hi, x.Cells)
+	// narrow: an enclosure tight enough to stand for the values on its
+	// cell (a policy test in float64; the proof is the enclosure itself).
+	quarter := x.Eps.Lo() / 4
+	narrow := func(v T) bool { return v.IsFinite() && v.Hi()-v.Lo() <= quarter }
 	var accept func(T) bool
 	if x.Max {
 		target := inner.Add(x.Eps)
-		accept = func(v T) bool { return v.IsFinite() && !target.Less(interval.Upper(v)) }
+		accept = func(v T) bool { return v.IsFinite() && !target.Less(interval.Upper(v)) || narrow(v) }
 	} else {
 		target := inner.Sub(x.Eps)
-		accept = func(v T) bool { return v.IsFinite() && !interval.Lower(v).Less(target) }
+		accept = func(v T) bool { return v.IsFinite() && !interval.Lower(v).Less(target) || narrow(v) }
 	}
 	f := x.F
 	if x.Fast != nil {
@@ -123,14 +134,30 @@ func (x Extreme[T]) Solve(like T) (ExtremeResult[T], error) {
 		return ExtremeResult[T]{}, err
 	}
 	outer := x.Outside
-	for _, c := range cells {
+	var most ProvedCell[T] // the cell with the most extreme enclosure
+	for i, c := range cells {
 		if !c.Value.IsFinite() {
 			return ExtremeResult[T]{}, fmt.Errorf("certify: enclosure not finite on cell [%s, %s]", c.Lo.FloatString(6), c.Hi.FloatString(6))
 		}
 		if x.Max {
 			outer = outer.Max(c.Value)
+			if i == 0 || most.Value.Hi() < c.Value.Hi() {
+				most = c
+			}
 		} else {
 			outer = outer.Min(c.Value)
+			if i == 0 || c.Value.Lo() < most.Value.Lo() {
+				most = c
+			}
+		}
+	}
+	// A better inner value from the most extreme cell (s* was a local
+	// extremum only, or not located closely enough).
+	if len(cells) > 0 {
+		mid := new(big.Rat).Add(most.Lo, most.Hi)
+		mid.Mul(mid, big.NewRat(1, 2))
+		if v := point(pt(mid)); v.IsFinite() && (x.Max && interval.Lower(inner).Less(interval.Lower(v)) || !x.Max && interval.Upper(v).Less(interval.Upper(inner))) {
+			inner, sStar = v, mid
 		}
 	}
 	// The extremum lies between the inner point value and the outer bound.

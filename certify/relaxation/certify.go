@@ -53,6 +53,22 @@ type Config struct {
 	Shard, Shards int
 	// Progress, if set, receives stage names and counts.
 	Progress func(stage string, done, total int)
+	// Work, if set, receives what is really done, as it happens: every
+	// search round, the start of each stage, and the cover's cells proved
+	// and enclosures computed (about every 64 enclosures).
+	Work func(Work)
+}
+
+// Work is one progress event of Run.
+type Work struct {
+	// Stage is "search", "tail range", "quadrature set-up" or "cover".
+	Stage string
+	// Search is the round just finished (stage "search"); MaxRounds bounds
+	// the rounds.
+	Search    *SearchStep
+	MaxRounds int
+	// Cover is the cover's status (stage "cover").
+	Cover *certify.CoverStatus
 }
 
 // Outcome is a finished certification.
@@ -112,6 +128,10 @@ func run[T interval.Real[T]](cfg Config, prec T) (*Outcome, error) {
 	if progress == nil {
 		progress = func(string, int, int) {}
 	}
+	work := cfg.Work
+	if work == nil {
+		work = func(Work) {}
+	}
 	candidate := math.NaN()
 	if len(weights) == 0 && len(terms) > 0 {
 		wb := cfg.WeightBound
@@ -128,9 +148,11 @@ func run[T interval.Real[T]](cfg Config, prec T) (*Outcome, error) {
 			}
 		}
 		iter := 0
-		res, err := Search(terms, edge, SearchOptions{WeightBound: wb, Workers: cfg.Workers, Progress: func(SearchStep) {
+		const maxRounds = 300 // Search's default MaxIter, passed explicitly
+		res, err := Search(terms, edge, SearchOptions{WeightBound: wb, Workers: cfg.Workers, MaxIter: maxRounds, Progress: func(st SearchStep) {
 			iter++
 			progress("search", iter, 0)
+			work(Work{Stage: "search", Search: &st, MaxRounds: maxRounds})
 		}})
 		if err != nil {
 			return nil, err
@@ -176,10 +198,12 @@ func run[T interval.Real[T]](cfg Config, prec T) (*Outcome, error) {
 		margin = 2e-4
 	}
 	target := candidate + margin
+	work(Work{Stage: "tail range"})
 	lo, hi, err := coverRange(rel, edge, target)
 	if err != nil {
 		return nil, err
 	}
+	work(Work{Stage: "quadrature set-up"})
 	warmUp(relT, lo, hi, cfg.Workers)
 	grid := regimeGrid(lo, hi)
 	if cfg.Shards > 0 {
@@ -204,6 +228,7 @@ func run[T interval.Real[T]](cfg Config, prec T) (*Outcome, error) {
 	cells, err := certify.Cover(prec, f, grid, accept, certify.CoverOptions{
 		MinWidth: big.NewRat(1, 1_000_000), MaxCells: 200_000, Workers: cfg.Workers,
 		Progress: func(d, t int) { progress("cover", d, t) },
+		Status:   func(st certify.CoverStatus) { work(Work{Stage: "cover", Cover: &st}) },
 	})
 	if err != nil {
 		return nil, err

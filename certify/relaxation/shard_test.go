@@ -100,10 +100,23 @@ func TestShardsMergeToWholeRun(t *testing.T) {
 		ps[2].Relaxation.Terms[0].Weight = "8.5"
 		return ps
 	})
-	bad("missing shard", "parts given", func(ps []*certificates.Certificate) []*certificates.Certificate {
+	// A part of another run: its weights, and therefore its range, differ.
+	// The message names the terms (issue 17: it named the range and a
+	// "shard 0" that does not exist).
+	bad("other run", "different terms", func(ps []*certificates.Certificate) []*certificates.Certificate {
+		ps[1].Relaxation.Terms[0].Weight = "8.5"
+		ps[1].Relaxation.Shard.Lo = "-50"
+		return ps
+	})
+	for _, ps := range [][]*certificates.Certificate{{clone(parts[0]), clone(parts[1])}, {parts[0], parts[1], parts[1]}} {
+		if _, err := certificates.Merge(ps); err == nil || strings.Contains(err.Error(), "shard 0") {
+			t.Errorf("merge error %v: want an error that numbers shards from 1", err)
+		}
+	}
+	bad("missing shard", "shard 3/3 is missing", func(ps []*certificates.Certificate) []*certificates.Certificate {
 		return ps[:2]
 	})
-	bad("shard twice", "missing or given twice", func(ps []*certificates.Certificate) []*certificates.Certificate {
+	bad("shard twice", "are both shard 2/3", func(ps []*certificates.Certificate) []*certificates.Certificate {
 		return []*certificates.Certificate{ps[0], ps[1], ps[1]}
 	})
 }

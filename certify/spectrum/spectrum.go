@@ -9,9 +9,14 @@
 // solver (certify.Extreme) covers [-S, S] with cells, each enclosed in
 // outward-rounded interval arithmetic, takes the tails |s| > S from the
 // tail lemmas of package regions, and gets the inner side from a point
-// enclosure at a located near-extremal s. The width is a target, not a
-// promise: when the cell budget (MaxCells) or the narrowest cell
-// (MinWidth) stops the refinement, the interval is wider but still proved.
+// enclosure at a located near-extremal s (or at the most extreme cell of
+// the cover, when the located s is a local extremum only). The work is
+// bounded: at most MaxCells cells and 2 MaxCells + 64 cell enclosures per
+// edge. When the requested digits are not reached within that bound (the
+// cover runs out of budget, or cells at the narrowest width MinWidth still
+// have enclosures wider than the target), Enclose returns an error that
+// says so and gives the proved, wider enclosure; it never returns an
+// interval narrower than what was proved.
 //
 // The bare quadrant has its own route (QuadrantEdges): the value comes
 // from a Newton-located critical point and a convexity bound, so its
@@ -45,9 +50,32 @@ const (
 	MaxTermDigits = 5
 )
 
-// Progress receives the stage ("inf spec" or "sup spec") and the cells
-// done so far out of an estimated total.
+// Progress receives the stage and a count done of total (QuadrantEdges).
 type Progress func(stage string, done, total int)
+
+// CoverProgress receives the stage ("inf spec" or "sup spec") and the work
+// done so far in it (pieces, cells proved, enclosures computed, the
+// budget) (Terms and Enclose).
+type CoverProgress func(stage string, st certify.CoverStatus)
+
+// MaxCells bounds the cells of one edge's cover (and so its work).
+const MaxCells = 100000
+
+// NotSettledError reports an enclosure that is proved but wider than the
+// requested digits allow.
+type NotSettledError struct {
+	Stage  string // "inf spec" or "sup spec"
+	Digits int
+	// Lower and Upper are the proved enclosure (float64 endpoints, outward).
+	Lower, Upper float64
+	// Reason says what stopped the refinement.
+	Reason string
+}
+
+func (e *NotSettledError) Error() string {
+	return fmt.Sprintf("%s: %d digits cannot be reached (%s); proved only [%.9g, %.9g], width %.2g; ask for fewer digits",
+		e.Stage, e.Digits, e.Reason, e.Lower, e.Upper, e.Upper-e.Lower)
+}
 
 // Quadrant encloses inf spec and sup spec of Op(chi_Q) to about digits
 // significant digits (1..MaxQuadrantDigits); see QuadrantEdges.
@@ -87,7 +115,7 @@ func QuadrantEdges(digits int, progress Progress) ([2]regions.QuadrantEdge, erro
 
 // Terms encloses inf spec and sup spec of Op(chi_Q + terms of rel) to about
 // digits significant digits (1..MaxTermDigits) in float64 intervals.
-func Terms(rel regions.Relaxation[interval.F], digits int, progress Progress) ([2]interval.F, error) {
+func Terms(rel regions.Relaxation[interval.F], digits int, progress CoverProgress) ([2]interval.F, error) {
 	if digits < 1 || digits > MaxTermDigits {
 		return [2]interval.F{}, fmt.Errorf("with terms at most %d digits are supported, not %d", MaxTermDigits, digits)
 	}
@@ -98,7 +126,7 @@ func Terms(rel regions.Relaxation[interval.F], digits int, progress Progress) ([
 // The bare quadrant (quadrant true; rel must then have no terms) uses the
 // mean-value form, which reaches any precision, with float64 cells first;
 // with terms the cells use direct enclosures. progress may be nil.
-func Enclose[T interval.Real[T]](like T, rel regions.Relaxation[T], digits int, quadrant bool, progress Progress) ([2]T, error) {
+func Enclose[T interval.Real[T]](like T, rel regions.Relaxation[T], digits int, quadrant bool, progress CoverProgress) ([2]T, error) {
 	Sv := int64(8)
 	small := func(S int64) bool {
 		for _, side := range []int{-1, 1} {
@@ -151,15 +179,21 @@ func Enclose[T interval.Real[T]](like T, rel regions.Relaxation[T], digits int, 
 		x := certify.Extreme[T]{
 			F: f, Point: point, Fast: fast, Lo: big.NewRat(-Sv, 1), Hi: big.NewRat(Sv, 1), Outside: outside, Scan: scan,
 			Cells: 64, Eps: eps, Max: e == regions.Upper,
-			Options: certify.CoverOptions{MinWidth: minW, MaxCells: 200000},
+			Options: certify.CoverOptions{MinWidth: minW, MaxCells: MaxCells},
 		}
+		stage := []string{"inf spec", "sup spec"}[i]
 		if progress != nil {
-			stage := []string{"inf spec", "sup spec"}[i]
-			x.Options.Progress = func(done, total int) { progress(stage, done, total) }
+			x.Options.Status = func(st certify.CoverStatus) { progress(stage, st) }
 		}
 		r, err := x.Solve(like)
 		if err != nil {
-			return out, err
+			return out, fmt.Errorf("%s: %d digits cannot be reached within the work bound of %d cells: %w; ask for fewer digits", stage, digits, MaxCells, err)
+		}
+		// The target: inner value within eps of every cell, so the width is
+		// at most eps plus the point enclosure's own width.
+		if w := r.Value.Hi() - r.Value.Lo(); !(w <= 1.5*eps.Hi()) {
+			return out, &NotSettledError{Stage: stage, Digits: digits, Lower: r.Value.Lo(), Upper: r.Value.Hi(),
+				Reason: fmt.Sprintf("cells %s wide still have enclosures wider than the target %.0e", minW.FloatString(digits/2+8), eps.Hi())}
 		}
 		out[i] = r.Value
 	}

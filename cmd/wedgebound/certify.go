@@ -1,16 +1,19 @@
 package main
 
 import (
-	"encoding/json"
+	"errors"
 	"fmt"
 	"io"
+	"math"
 	"os"
+	"strconv"
 	"strings"
 
 	"github.com/spf13/pflag"
 
 	"wedgebound/certificates"
 	"wedgebound/certify/relaxation"
+	"wedgebound/interval"
 	"wedgebound/regions"
 )
 
@@ -23,16 +26,17 @@ func runCertify(args []string, stdout, stderr io.Writer) int {
 	fs.SetOutput(stderr)
 	preset := fs.String("preset", "", "named problem: "+strings.Join(regions.PresetNames(), ", "))
 	problemFile := fs.String("problem", "", "JSON problem file {\"vertex\", \"rays\", \"halfplane\", \"edge\"}")
-	out := fs.String("out", "", "certificate file to write (required)")
+	out := fs.String("out", "", helpOut+" (required)")
 	exps := fs.String("exp", "0.03,0.13,0.79,5.3,40,300,1000,3000", "comma-separated decay rates k of the exponential profiles e^{-k xp} (\"none\" for the bare quadrant)")
 	weights := fs.String("weights", "", "comma-separated exact weights for the profiles (default: searched)")
-	weightBound := fs.Float64("weight-bound", 0, "bound on the searched weights (default max(50, k_max/15))")
-	margin := fs.Float64("margin", 2e-5, "how far above the float candidate the cover aims")
+	weightBound := fs.Float64("weight-bound", 0, "bound on the searched weights (0: max(50, k_max/15))")
+	var margin float64
+	addTolerance(fs, &margin, 2e-5, "how far above the float estimate the proved bound may lie (the cover aims at estimate + tolerance)", "margin")
 	prec := fs.Int("prec", 53, "working precision of the cover in bits (53: float64 intervals; 54..65536: big.Float intervals, slower)")
-	workers := fs.Int("workers", 0, "goroutines (default: all cores); the certificate does not depend on it")
+	workers := addWorkers(fs)
 	shard := fs.String("shard", "", "prove only part I of N of the cover (I/N, 1 <= I <= N) and write a partial certificate for \"wedgebound merge\"")
-	asJSON := fs.Bool("json", false, "print a JSON summary with the proved bound in the field bound")
-	quiet := fs.Bool("quiet", false, "no progress display")
+	asJSON := fs.Bool("json", false, helpJSON)
+	quiet := addQuiet(fs)
 	fs.Usage = func() {
 		fmt.Fprintln(stderr, "usage: wedgebound certify (--preset NAME | --problem FILE) --out FILE [flags]")
 		fs.PrintDefaults()
@@ -41,6 +45,7 @@ func runCertify(args []string, stdout, stderr io.Writer) int {
 		if err == pflag.ErrHelp {
 			return 0
 		}
+		fmt.Fprintf(stderr, "wedgebound certify: %v (see --help)\n", err)
 		return 2
 	}
 	fail := func(format string, a ...any) int {
@@ -56,11 +61,20 @@ func runCertify(args []string, stdout, stderr io.Writer) int {
 	if *out == "" {
 		return fail("--out FILE is required")
 	}
+	if err := checkOutput("--out", *out); err != nil {
+		return fail("%v", err)
+	}
 	if *prec < 53 || *prec > 65536 {
 		return fail("--prec %d is outside 53..65536", *prec)
 	}
-	if *margin <= 0 || *margin > 1 {
-		return fail("--margin must lie in (0, 1]")
+	if !(margin > 0) || margin > 1 {
+		return fail("--tolerance %g is outside (0, 1]", margin)
+	}
+	if !(*weightBound >= 0) || !finite(*weightBound) {
+		return fail("--weight-bound %g must be a finite number >= 0 (0: automatic)", *weightBound)
+	}
+	if err := checkWorkers(*workers); err != nil {
+		return fail("%v", err)
 	}
 	var p regions.Problem
 	if *preset != "" {
@@ -77,7 +91,7 @@ func runCertify(args []string, stdout, stderr io.Writer) int {
 			return fail("%s: %v", *problemFile, err)
 		}
 	}
-	cfg := relaxation.Config{Problem: p, WeightBound: *weightBound, Margin: *margin, Workers: *workers, Prec: uint(*prec)}
+	cfg := relaxation.Config{Problem: p, WeightBound: *weightBound, Margin: margin, Workers: *workers, Prec: uint(*prec)}
 	var ks, ws []string
 	if s := strings.TrimSpace(*exps); s != "" && s != "none" {
 		ks = splitList(s)
@@ -95,6 +109,9 @@ func runCertify(args []string, stdout, stderr io.Writer) int {
 		}
 		cfg.Terms = append(cfg.Terms, t)
 	}
+	if err := checkCertifyInput(p, ks, ws); err != nil {
+		return fail("%v", err)
+	}
 	if *shard != "" {
 		var i, n int
 		if _, err := fmt.Sscanf(*shard, "%d/%d", &i, &n); err != nil || n < 1 || i < 1 || i > n || fmt.Sprintf("%d/%d", i, n) != *shard {
@@ -103,7 +120,7 @@ func runCertify(args []string, stdout, stderr io.Writer) int {
 		cfg.Shard, cfg.Shards = i-1, n
 	}
 	bar := newProgress(stderr, *quiet)
-	cfg.Progress = bar.update
+	cfg.Work = bar.work
 	res, err := relaxation.Run(cfg)
 	bar.done()
 	if err != nil {
@@ -111,20 +128,26 @@ func runCertify(args []string, stdout, stderr io.Writer) int {
 		return 1
 	}
 	if err := certificates.WriteFile(*out, res.Certificate); err != nil {
-		fmt.Fprintf(stderr, "wedgebound certify: writing %s: %v\n", *out, err)
-		return 1
+		return fail("%v", err)
 	}
 	bound := res.Certificate.Relaxation.Claim.Bound
 	if *asJSON {
-		b, _ := json.MarshalIndent(struct {
+		// bound is proved (a decimal string); candidate (the float estimate
+		// the search reached), cells, seconds, file and sha256 are
+		// informational.
+		candidate := "none"
+		if !math.IsNaN(res.Candidate) {
+			candidate = strconv.FormatFloat(res.Candidate, 'g', 9, 64)
+		}
+		b, _ := marshalJSON(struct {
 			Bound     string  `json:"bound"`
 			Edge      string  `json:"edge"`
-			Candidate float64 `json:"candidate"`
+			Candidate string  `json:"candidate"`
 			Cells     int     `json:"cells"`
 			Seconds   float64 `json:"seconds"`
 			File      string  `json:"file"`
 			SHA256    string  `json:"sha256"`
-		}{bound, string(p.Edge), res.Candidate, len(res.Certificate.Relaxation.Cover), res.Elapsed.Seconds(), *out, res.Certificate.SHA256}, "", "  ")
+		}{bound, string(p.Edge), candidate, len(res.Certificate.Relaxation.Cover), math.Round(res.Elapsed.Seconds()*1000) / 1000, *out, res.Certificate.SHA256})
 		fmt.Fprintln(stdout, string(b))
 		return 0
 	}
@@ -145,4 +168,35 @@ func splitList(s string) []string {
 		}
 	}
 	return out
+}
+
+// checkCertifyInput rejects, before any work, what relaxation.Run would only
+// find later: a problem without a normal form, profiles the geometry does
+// not admit, decay rates or weights that are not finite decimals, and a
+// weight count that does not match. Such input is the user's (exit 2).
+func checkCertifyInput(p regions.Problem, ks, weights []string) error {
+	nf, err := regions.Normalize(p)
+	if err != nil {
+		return fmt.Errorf("the problem: %v", err)
+	}
+	if u0, ok := nf.Threshold(); len(ks) > 0 && (!ok || u0.Sign() != 0) {
+		return errors.New("this geometry leaves only xp >= d^2/(4ab) > 0 of quadrant III free, but the exponential profiles reach xp = 0; certify the bare quadrant (--exp none) instead")
+	}
+	for _, k := range ks {
+		if _, err := regions.NewTerm(interval.PointF(0), "exp", map[string]string{"k": k}); err != nil {
+			return fmt.Errorf("--exp %s: %v", k, err)
+		}
+	}
+	if len(weights) == 0 {
+		return nil
+	}
+	if len(weights) != len(ks) {
+		return fmt.Errorf("--weights: %d weights given for %d profiles", len(weights), len(ks))
+	}
+	for i, w := range weights {
+		if _, err := regions.ParseRat(w); err != nil {
+			return fmt.Errorf("--weights: weight %d: %v", i+1, err)
+		}
+	}
+	return nil
 }

@@ -1,7 +1,6 @@
 package main
 
 import (
-	"encoding/json"
 	"fmt"
 	"io"
 	"math"
@@ -53,8 +52,9 @@ func constNames() string {
 func runConst(args []string, stdout, stderr io.Writer) int {
 	fs := pflag.NewFlagSet("const", pflag.ContinueOnError)
 	fs.SetOutput(stderr)
-	digits := fs.Int("digits", 50, "correct decimal digits wanted (1..100000, at most about 19723 fit the precision cap); the bounds are printed with two more")
-	asJSON := fs.Bool("json", false, "print {\"name\", \"digits\", \"lower\", \"upper\"} as JSON")
+	digits := fs.Int("digits", 50, "correct significant digits wanted (1..100000, at most about 19723 fit the precision cap); the bounds are printed with two more")
+	asJSON := fs.Bool("json", false, helpJSON+": name, digits, lower, upper")
+	addQuiet(fs)
 	fs.Usage = func() {
 		fmt.Fprintf(stderr, "usage: wedgebound const NAME [--digits N] [--json]   (NAME: %s)\n", constNames())
 		fs.PrintDefaults()
@@ -99,7 +99,7 @@ func runConst(args []string, stdout, stderr io.Writer) int {
 		return 1
 	}
 	if *asJSON {
-		b, err := json.MarshalIndent(constResult{Name: name, Digits: *digits, Lower: lo, Upper: hi}, "", "  ")
+		b, err := marshalJSON(constResult{Name: name, Digits: *digits, Lower: lo, Upper: hi})
 		if err != nil {
 			fmt.Fprintf(stderr, "wedgebound const: %v\n", err)
 			return 1

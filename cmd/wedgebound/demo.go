@@ -4,7 +4,6 @@ import (
 	"bytes"
 	"context"
 	"encoding/csv"
-	"encoding/json"
 	"errors"
 	"fmt"
 	"io"
@@ -76,9 +75,10 @@ func runDemo(args []string, stdout, stderr io.Writer) int {
 	force := fs.Bool("force", false, "write into DIR even if it is not empty (files of the same name are replaced)")
 	verifier := fs.String("verifier", "", "wedgecheck binary to run (default: next to this program, then on PATH, then built with the go tool)")
 	quick := fs.Bool("quick", false, "a smaller strip bracket and sweep (alpha 5; 3 points on [1, 10])")
-	workers := fs.Int("workers", 0, "goroutines (default: all cores); the results do not depend on it")
+	workers := addWorkers(fs)
+	quiet := addQuiet(fs)
 	fs.Usage = func() {
-		fmt.Fprintln(stderr, "usage: wedgebound demo [--force] [--quick] [--verifier PATH] DIR")
+		fmt.Fprintln(stderr, "usage: wedgebound demo [--force] [--quick] [--verifier PATH] [--workers N] [--quiet] DIR")
 		fs.PrintDefaults()
 	}
 	if err := fs.Parse(args); err != nil {
@@ -94,6 +94,9 @@ func runDemo(args []string, stdout, stderr io.Writer) int {
 	}
 	if fs.NArg() != 1 {
 		return fail(2, "give exactly one directory (usage: wedgebound demo [--force] DIR)")
+	}
+	if err := checkWorkers(*workers); err != nil {
+		return fail(2, "%v", err)
 	}
 	dir := fs.Arg(0)
 	if err := prepareDemoDir(dir, *force); err != nil {
@@ -134,8 +137,8 @@ func runDemo(args []string, stdout, stderr io.Writer) int {
 		relaxation.Describe(p), path(demoProblemFile), normalText(nf), regions.RatString(u0))
 
 	// (b) Certify with one exponential profile.
-	bar := newProgress(stderr, false)
-	res, err := relaxation.Run(relaxation.Config{Problem: p, Terms: []certificates.Term{{Kind: "exp", Params: map[string]string{"k": plan.k}}}, Margin: plan.margin, Workers: *workers, Progress: bar.update})
+	bar := newProgress(stderr, *quiet)
+	res, err := relaxation.Run(relaxation.Config{Problem: p, Terms: []certificates.Term{{Kind: "exp", Params: map[string]string{"k": plan.k}}}, Margin: plan.margin, Workers: *workers, Work: bar.work})
 	bar.done()
 	if err != nil {
 		return fail(1, "certify: %v", err)
@@ -148,17 +151,33 @@ func runDemo(args []string, stdout, stderr io.Writer) int {
 	say("certified with e^{-%s xp} (weight %s): %s (%d cells, %.1f s) -> %s",
 		plan.k, res.Certificate.Relaxation.Terms[0].Weight, claim.Statement, len(res.Certificate.Relaxation.Cover), res.Elapsed.Seconds(), certPath)
 
-	// (c) Verify with the independent verifier.
-	v := verifyDemo(*verifier, certPath)
+	// (c) A finite-strip bracket certificate.
+	sr, err := demoStrip(plan.alpha)
+	if err != nil {
+		return fail(1, "strip: %v", err)
+	}
+	stripCert, err := sr.Certificate()
+	if err != nil {
+		return fail(1, "strip: %v", err)
+	}
+	stripPath := path(demoStripFile(plan.alpha))
+	if err := certificates.WriteFile(stripPath, stripCert); err != nil {
+		return fail(1, "%v", err)
+	}
+	say("strip-bracket certificate at alpha = %s: A(alpha) in [%s, %s], lambda_max in [%s, %s] -> %s",
+		plan.alpha, sr.Advantage.Lower, sr.Advantage.Upper, sr.Deficit.Lower, sr.Deficit.Upper, stripPath)
+
+	// (d) Verify both certificates with the independent verifier.
+	v := verifyDemo(*verifier, certPath, stripPath)
 	if err := write(demoVerifyFile, []byte(v.text)); err != nil {
 		return fail(1, "%v", err)
 	}
 	say("%s -> %s", v.summary, path(demoVerifyFile))
 	if v.failed {
-		return fail(1, "the verifier did not accept %s (see %s)", certPath, path(demoVerifyFile))
+		return fail(1, "the verifier did not accept %s and %s (see %s)", certPath, stripPath, path(demoVerifyFile))
 	}
 
-	// (d) Reports.
+	// (e) Reports on both certificates (one table, two kinds).
 	item, err := readReportItem(certPath)
 	if err == nil {
 		err = item.consistent()
@@ -167,30 +186,23 @@ func runDemo(args []string, stdout, stderr io.Writer) int {
 		return fail(1, "report: %v", err)
 	}
 	item.file = demoCertFile // paths in the reports relative to DIR
+	stripItem, err := readReportItem(stripPath)
+	if err == nil {
+		err = stripItem.consistent()
+	}
+	if err != nil {
+		return fail(1, "report: %v", err)
+	}
+	stripItem.file = demoStripFile(plan.alpha)
 	for _, r := range []struct {
 		name, format string
 		standalone   bool
 	}{{demoReportText, formatText, false}, {demoReportMD, formatMarkdown, false}, {demoReportTeX, formatLaTeX, true}} {
-		if err := write(r.name, []byte(renderReport(r.format, r.standalone, []reportItem{item}))); err != nil {
+		if err := write(r.name, []byte(renderReport(r.format, r.standalone, []reportItem{item, stripItem}))); err != nil {
 			return fail(1, "%v", err)
 		}
 	}
 	say("reports: %s (proof summary), %s (table), %s (LaTeX document)", path(demoReportText), path(demoReportMD), path(demoReportTeX))
-
-	// (e) A finite-strip bracket.
-	sr, err := demoStrip(plan.alpha)
-	if err != nil {
-		return fail(1, "strip: %v", err)
-	}
-	js, err := json.MarshalIndent(sr, "", "  ")
-	if err != nil {
-		return fail(1, "strip: %v", err)
-	}
-	if err := write(demoStripFile(plan.alpha), append(js, '\n')); err != nil {
-		return fail(1, "%v", err)
-	}
-	say("strip bracket at alpha = %s: A(alpha) in [%s, %s], lambda_max in [%s, %s] -> %s",
-		plan.alpha, sr.Advantage.Lower, sr.Advantage.Upper, sr.Deficit.Lower, sr.Deficit.Upper, path(demoStripFile(plan.alpha)))
 
 	// (f) A sweep over alpha, through the sweep command itself.
 	var sout, serr bytes.Buffer
@@ -273,34 +285,38 @@ type verification struct {
 // this executable, else one on PATH, else one built with the go tool. When
 // none can be had, the step is skipped (not failed) and the text says how
 // to run it.
-func verifyDemo(explicit, cert string) verification {
+func verifyDemo(explicit string, certs ...string) verification {
 	bin, how, cleanup, err := findVerifier(explicit)
 	if cleanup != nil {
 		defer cleanup()
 	}
 	if err != nil {
-		abs, aerr := filepath.Abs(cert)
-		if aerr != nil {
-			abs = cert
+		var abs []string
+		for _, c := range certs {
+			a, aerr := filepath.Abs(c)
+			if aerr != nil {
+				a = c
+			}
+			abs = append(abs, a)
 		}
-		manual := fmt.Sprintf("to verify by hand, from the wedgebound source tree run: go build ./cmd/wedgecheck && ./wedgecheck %s", abs)
+		manual := fmt.Sprintf("to verify by hand, from the wedgebound source tree run: go build ./cmd/wedgecheck && ./wedgecheck %s", strings.Join(abs, " "))
 		msg := "verification SKIPPED (" + err.Error() + ")"
 		return verification{text: msg + ";\n" + manual + "\n", summary: msg + "; " + manual, how: "skipped (" + err.Error() + "); " + manual, failed: explicit != ""}
 	}
 	ctx, cancel := context.WithTimeout(context.Background(), 10*time.Minute)
 	defer cancel()
 	var out bytes.Buffer
-	cmd := exec.CommandContext(ctx, bin, cert)
+	cmd := exec.CommandContext(ctx, bin, certs...)
 	cmd.Stdout, cmd.Stderr = &out, &out
 	runErr := cmd.Run()
-	header := fmt.Sprintf("$ wedgecheck %s   (verifier: %s)\n", cert, how)
+	header := fmt.Sprintf("$ wedgecheck %s   (verifier: %s)\n", strings.Join(certs, " "), how)
 	text := header + out.String()
 	var exit *exec.ExitError
 	switch {
 	case runErr == nil:
-		return verification{text: text, summary: "verified by the independent verifier: PASS", how: how, passed: true}
+		return verification{text: text, summary: fmt.Sprintf("verified by the independent verifier: PASS (%d certificates)", len(certs)), how: how, passed: true}
 	case errors.As(runErr, &exit):
-		return verification{text: text, summary: fmt.Sprintf("verifier exit status %d: the certificate was NOT accepted", exit.ExitCode()), how: how, failed: true}
+		return verification{text: text, summary: fmt.Sprintf("verifier exit status %d: a certificate was NOT accepted", exit.ExitCode()), how: how, failed: true}
 	default:
 		return verification{text: text + runErr.Error() + "\n", summary: "the verifier could not run: " + runErr.Error(), how: how, failed: true}
 	}
@@ -377,15 +393,15 @@ func demoReadmeText(plan demoPlan, p regions.Problem, nf regions.Normal, it repo
 	verifyLine := "The output of the independent verifier wedgecheck on the certificate: "
 	switch {
 	case v.passed:
-		verifyLine += "PASS. It recomputed the hash, the normal form and every cell's enclosure by its own numerics."
+		verifyLine += "PASS for both certificates. For the relaxation it recomputed the hash, the normal form and every cell's enclosure by its own numerics; for the strip bracket the witnesses' Rayleigh quotients, the discarded part and both Galerkin eigenvalue bounds."
 	default:
 		verifyLine += v.how + "."
 	}
-	entry(demoVerifyFile, verifyLine+" Re-run it with \"wedgecheck "+demoCertFile+"\".")
-	entry(demoReportText, "The plain-text proof summary a referee reads: what was relaxed, why the relaxation is admissible, what is claimed and what the verifier recomputes (\"wedgebound report "+demoCertFile+"\").")
-	entry(demoReportMD, "The same certificate as a Markdown table row (\"wedgebound report --format markdown\").")
+	entry(demoVerifyFile, verifyLine+" Re-run it with \"wedgecheck "+demoCertFile+" "+demoStripFile(plan.alpha)+"\".")
+	entry(demoReportText, "The plain-text proof summaries of both certificates a referee reads: what was relaxed, why the relaxation is admissible, what is claimed and what the verifier recomputes (\"wedgebound report "+demoCertFile+"\").")
+	entry(demoReportMD, "Both certificates as rows of one Markdown table (\"wedgebound report --format markdown "+demoCertFile+" "+demoStripFile(plan.alpha)+"\").")
 	entry(demoReportTeX, "The table as a minimal LaTeX document (\"wedgebound report --format latex --standalone\"; drop --standalone for the bare tabular to paste into a paper).")
-	entry(demoStripFile(plan.alpha), fmt.Sprintf("The certified bracket of the finite-strip operator at alpha = %s (\"wedgebound strip --alpha %s --json\"): advantage A(alpha) = -lambda_min in [%s, %s], lambda_max in [%s, %s], with the witness states and every error term (basis size %d).",
+	entry(demoStripFile(plan.alpha), fmt.Sprintf("The strip-bracket certificate of the finite-strip operator at alpha = %s (\"wedgebound strip --alpha %s --out FILE\"; check it with wedgecheck): advantage A(alpha) = -lambda_min in [%s, %s], lambda_max in [%s, %s], with the witness states and every error term (basis size %d).",
 		plan.alpha, plan.alpha, sr.Advantage.Lower, sr.Advantage.Upper, sr.Deficit.Lower, sr.Deficit.Upper, sr.BasisSize))
 	entry(demoSweepCSV, fmt.Sprintf("Certified brackets of A(alpha) and lambda_max at %s log-spaced alpha in [%s, %s], one row each (\"wedgebound sweep\"); %s.", plan.points, plan.sweepFrom, plan.sweepTo, sweepLine))
 	entry(demoSweepSVG, "A plot of the advantage brackets against alpha, with the best certified lower bound and the published numerical estimate of the backflow constant (dashed, not certified).")

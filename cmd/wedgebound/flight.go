@@ -42,9 +42,10 @@ func runFlight(args []string, stdout, stderr io.Writer) int {
 	file := fs.String("stages", "", "read the flight from a JSON file {\"length\", \"target\", \"stages\": [{\"mass\", \"duration\", \"kick\"}]}")
 	length := fs.String("length", "", "length L of the confining region with unit (m, mm, um, nm); without it every number is scaled (L = 1)")
 	target := fs.String("target", "", "target position (default: L, the right end of the region)")
-	digits := fs.Int("digits", 12, "significant digits of the printed brackets (1..17)")
+	digits := fs.Int("print-digits", 12, "significant digits of the printed brackets (1..17), each end rounded outward")
+	addQuiet(fs)
 	asJSON := fs.Bool("json", false, "print the reduction and the brackets as JSON")
-	out := fs.String("out", "", "also write a flight-reduction certificate to this file (check it with wedgecheck)")
+	out := fs.String("out", "", helpOut+": a flight-reduction certificate (check it with wedgecheck)")
 	var in stripInput
 	in.add(fs)
 	fs.Usage = func() {
@@ -66,9 +67,12 @@ func runFlight(args []string, stdout, stderr io.Writer) int {
 		return fail("unexpected argument %q", fs.Arg(0))
 	}
 	if *digits < 1 || *digits > 17 {
-		return fail("--digits %d is outside 1..17", *digits)
+		return fail("--print-digits %d is outside 1..17", *digits)
 	}
 	if err := in.check(); err != nil {
+		return fail("%v", err)
+	}
+	if err := checkOutput("--out", *out); err != nil {
 		return fail("%v", err)
 	}
 	var plan flight.Plan
@@ -114,12 +118,12 @@ func runFlight(args []string, stdout, stderr io.Writer) int {
 	}
 	if *out != "" {
 		c, err := res.Certificate()
-		if err == nil {
-			err = certificates.WriteFile(*out, c)
-		}
 		if err != nil {
 			fmt.Fprintf(stderr, "wedgebound flight: %v\n", err)
 			return 1
+		}
+		if err := certificates.WriteFile(*out, c); err != nil {
+			return fail("%v", err)
 		}
 	}
 	red := res.Reduction

@@ -9,6 +9,8 @@ import (
 	"io"
 	"os"
 	"sort"
+
+	"wedgebound/certificates"
 )
 
 // command is one subcommand: run parses its own flags from args and returns
@@ -37,7 +39,8 @@ func usage(w io.Writer) {
 	for _, n := range names {
 		fmt.Fprintf(w, "  %-10s %s\n", n, commands[n].summary)
 	}
-	fmt.Fprintln(w, "run \"wedgebound <subcommand> --help\" for its flags")
+	fmt.Fprintln(w, "  version    print the version and the certificate schema and kinds it writes")
+	fmt.Fprintln(w, "run \"wedgebound <subcommand> --help\" for its flags; \"wedgebound --version\" for the version")
 }
 
 func main() {
@@ -52,10 +55,20 @@ func dispatch(args []string, stdout, stderr io.Writer) int {
 		}
 		return 0
 	}
+	if args[0] == "--version" || args[0] == "version" {
+		printVersion(stdout)
+		return 0
+	}
 	c, ok := commands[args[0]]
 	if !ok {
 		fmt.Fprintf(stderr, "wedgebound: unknown subcommand %q (run \"wedgebound help\")\n", args[0])
 		return 2
 	}
 	return c.run(args[1:], stdout, stderr)
+}
+
+// printVersion prints the program version and the schema it writes.
+func printVersion(w io.Writer) {
+	fmt.Fprintf(w, "wedgebound %s\n", certificates.Version)
+	fmt.Fprintf(w, "writes and reads schema %s, kinds %s, %s, %s and %s\n", certificates.Schema, certificates.KindRelaxation, certificates.KindStrip, certificates.KindFlight, certificates.KindPrecession)
 }

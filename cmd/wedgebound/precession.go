@@ -33,16 +33,16 @@ type precessionJSON struct {
 func runPrecession(args []string, stdout, stderr io.Writer) int {
 	fs := pflag.NewFlagSet("precession", pflag.ContinueOnError)
 	fs.SetOutput(stderr)
-	out := fs.String("out", "", "write a precession-bracket certificate to this file (check it with wedgecheck)")
+	out := fs.String("out", "", helpOut+": a precession-bracket certificate (check it with wedgecheck)")
 	asJSON := fs.Bool("json", false, "print the result as JSON (decimal strings lower, upper, ...)")
 	cutoff := fs.Int("cutoff", precession.DefaultCutoff, "rows kept exactly in the norm lemma of each residue class (upper bound)")
-	length := fs.Int("length", precession.DefaultLength, "terms of the lemma's sums added exactly before the proved tail bound (upper bound)")
+	length := fs.Int("sum-length", precession.DefaultLength, "terms of the lemma's sums added exactly before the proved tail bound (upper bound)")
 	witness := fs.Int("witness", precession.DefaultWitness, "length of each half of the witness state (lower bound; its largest Fock index is about 6x this)")
 	workers := fs.Int("workers", 0, "goroutines (0: all cores); the result does not depend on it")
-	plot := fs.String("plot", "", "also draw the witness's Wigner function as a heat map to this PNG file")
+	plot := fs.String("png", "", "also draw the witness's Wigner function as a heat map to this PNG file")
 	quiet := fs.Bool("quiet", false, "no progress display")
 	fs.Usage = func() {
-		fmt.Fprintln(stderr, "usage: wedgebound precession [--out FILE] [--json] [--cutoff A] [--length L] [--witness N] [--plot FILE.png] [--quiet]")
+		fmt.Fprintln(stderr, "usage: wedgebound precession [--out FILE] [--json] [--cutoff A] [--sum-length L] [--witness N] [--png FILE] [--quiet]")
 		fs.PrintDefaults()
 	}
 	if err := fs.Parse(args); err != nil {
@@ -65,6 +65,12 @@ func runPrecession(args []string, stdout, stderr io.Writer) int {
 		fmt.Fprintf(stderr, "wedgebound precession: --workers %d is negative\n", *workers)
 		return 2
 	}
+	for _, o := range [][2]string{{"--out", *out}, {"--png", *plot}} {
+		if err := checkOutput(o[0], o[1]); err != nil {
+			fmt.Fprintf(stderr, "wedgebound precession: %v\n", err)
+			return 2
+		}
+	}
 	bar := newProgress(stderr, *quiet)
 	opt.Progress = bar.update
 	res, err := precession.Run(opt)
@@ -76,7 +82,7 @@ func runPrecession(args []string, stdout, stderr io.Writer) int {
 	if *out != "" {
 		if err := certificates.WriteFile(*out, res.Certificate()); err != nil {
 			fmt.Fprintf(stderr, "wedgebound precession: %v\n", err)
-			return 1
+			return 2
 		}
 	}
 	if *plot != "" {

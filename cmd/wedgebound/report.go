@@ -25,11 +25,15 @@ const (
 	formatText     = "text"
 )
 
-// reportItem is one certificate to report on.
+// reportItem is one certificate to report on: exactly one of rel and
+// strip is set, by kind.
 type reportItem struct {
-	file string
-	cert *certificates.Certificate
-	rel  *certificates.Relaxation
+	file  string
+	cert  *certificates.Certificate
+	rel   *certificates.Relaxation
+	strip *certificates.Strip
+	// precession, for a precession-bracket certificate, is its section.
+	precession *certificates.Precession
 }
 
 func runReport(args []string, stdout, stderr io.Writer) int {
@@ -37,9 +41,11 @@ func runReport(args []string, stdout, stderr io.Writer) int {
 	fs.SetOutput(stderr)
 	format := fs.String("format", formatText, "output format: latex (a tabular), markdown (a table) or text (a proof summary per certificate)")
 	standalone := fs.Bool("standalone", false, "with --format latex: wrap the table in a minimal \\documentclass{article} document")
-	out := fs.String("out", "", "write the report to this file (atomically) instead of standard output")
+	save := fs.String("save", "", helpSave)
+	addQuiet(fs)
 	fs.Usage = func() {
-		fmt.Fprintln(stderr, "usage: wedgebound report [--format latex|markdown|text] [--standalone] [--out FILE] CERTIFICATE.json...")
+		fmt.Fprintln(stderr, "usage: wedgebound report [--format latex|markdown|text] [--standalone] [--save FILE] CERTIFICATE.json...")
+		fmt.Fprintln(stderr, "Reports every certificate kind; one table can mix kinds.")
 		fs.PrintDefaults()
 	}
 	if err := fs.Parse(args); err != nil {
@@ -64,14 +70,16 @@ func runReport(args []string, stdout, stderr io.Writer) int {
 	if fs.NArg() == 0 {
 		return fail(2, "no certificate files given")
 	}
-	if precs, ok, err := readPrecessionItems(fs.Args()); ok {
-		if err != nil {
-			return fail(2, "%s", oneLineText(err.Error()))
-		}
+	if err := checkOutput("--save", *save); err != nil {
+		return fail(2, "%v", err)
+	}
+	// Only precession certificates: their own table; mixed with other
+	// kinds, they are rows of the common table below.
+	if precs, ok, err := readPrecessionItems(fs.Args()); ok && err == nil {
 		text := renderPrecessionReport(*format, *standalone, precs)
-		if *out != "" {
-			if err := certificates.WriteAtomic(*out, []byte(text)); err != nil {
-				return fail(1, "writing %s: %v", *out, err)
+		if *save != "" {
+			if err := certificates.WriteAtomic(*save, []byte(text)); err != nil {
+				return fail(2, "%v", err)
 			}
 			return 0
 		}
@@ -122,9 +130,9 @@ func runReport(args []string, stdout, stderr io.Writer) int {
 		writeBrackets(&b, *format, brackets)
 		text += b.String()
 	}
-	if *out != "" {
-		if err := certificates.WriteAtomic(*out, []byte(text)); err != nil {
-			return fail(1, "writing %s: %v", *out, err)
+	if *save != "" {
+		if err := certificates.WriteAtomic(*save, []byte(text)); err != nil {
+			return fail(2, "%v", err)
 		}
 		return 0
 	}
@@ -138,13 +146,18 @@ func readReportItem(path string) (reportItem, error) {
 	if err != nil {
 		return reportItem{}, err
 	}
-	if c.Kind != certificates.KindRelaxation || c.Relaxation == nil {
-		return reportItem{}, fmt.Errorf("certificate kind %q is not reported by this version", c.Kind)
-	}
 	if len(c.SHA256) != 64 {
 		return reportItem{}, fmt.Errorf("sha256 %q is not 64 hex digits", c.SHA256)
 	}
-	return reportItem{file: path, cert: c, rel: c.Relaxation}, nil
+	switch {
+	case c.Kind == certificates.KindRelaxation && c.Relaxation != nil:
+		return reportItem{file: path, cert: c, rel: c.Relaxation}, nil
+	case c.Kind == certificates.KindStrip && c.Strip != nil:
+		return reportItem{file: path, cert: c, strip: c.Strip}, nil
+	case c.Kind == certificates.KindPrecession && c.Precession != nil:
+		return reportItem{file: path, cert: c, precession: c.Precession}, nil
+	}
+	return reportItem{}, fmt.Errorf("certificate kind %q is not reported by this version", c.Kind)
 }
 
 // renderReport formats the items; the output depends only on the files'
@@ -161,7 +174,14 @@ func renderReport(format string, standalone bool, items []reportItem) string {
 			if i > 0 {
 				b.WriteString("\n")
 			}
-			writeSummary(&b, it)
+			if it.precession != nil {
+				writePrecessionSummary(&b, it)
+
+			} else if it.strip != nil {
+				writeStripSummary(&b, it)
+			} else {
+				writeSummary(&b, it)
+			}
 		}
 	}
 	return b.String()
@@ -186,6 +206,12 @@ func rat(s string) *big.Rat {
 // support the claim. A certificate failing these cannot pass verification,
 // so the report refuses to restate it. It is no substitute for wedgecheck.
 func (it reportItem) consistent() error {
+	if it.precession != nil {
+		return precessionConsistent(it.precession)
+	}
+	if it.strip != nil {
+		return stripConsistent(it.strip)
+	}
 	r := it.rel
 	thr, ok := threshold(r.Normal)
 	recorded := r.Normal.Threshold
@@ -450,7 +476,7 @@ func boundLaTeX(r *certificates.Relaxation) string {
 type budgetEntry struct{ name, value string }
 
 func budgetEntries(b certificates.Budget) []budgetEntry {
-	return []budgetEntry{{"quadrature", b.Quadrature}, {"truncation", b.Truncation}, {"tails", b.Tails}, {"rounding", b.Rounding}}
+	return []budgetEntry{{"quadrature", b.Quadrature}, {"truncation", b.Truncation}, {"tail |B|", b.Tails}, {"rounding", b.Rounding}}
 }
 
 // upDigits rounds a non-negative rational up to n significant digits and
@@ -527,7 +553,7 @@ func budgetLaTeX(b certificates.Budget) string {
 	var parts []string
 	for _, e := range budgetEntries(b) {
 		v := budgetValue(e.value, func(m string, k int) string { return fmt.Sprintf("%s\\cdot 10^{%d}", m, k) })
-		parts = append(parts, e.name+" $"+v+"$")
+		parts = append(parts, texEscape(e.name)+" $"+v+"$")
 	}
 	return strings.Join(parts, "\\newline ")
 }
@@ -601,9 +627,16 @@ func sciParts(s string) (string, string, bool) {
 	return m, e, true
 }
 
-const reportLegend = "sigma is the spectrum of P Op(chi_W) P, where P projects onto the states whose Wigner function lives in the half-plane H; " +
-	"the error budget lists the largest term of each kind recorded in the certificate (all are already included in the proved enclosures); " +
-	"SHA-256 gives the first 12 hex digits of the certificate hash; every bound can be re-checked with wedgecheck."
+// reportLegend explains the table; spec names the spectrum as the cells
+// write it ("spec" in text and Markdown, "sigma" in LaTeX).
+func reportLegend(spec string) string {
+	return spec + " is the spectrum of P Op(chi_W) P, where P projects onto the states whose Wigner function lives in the half-plane H; " +
+		"for a finite strip, A(alpha) = -inf " + spec + " K_alpha and sup " + spec + " K is that of K_alpha; " +
+		"P3 is the three-time precession constant; " +
+		"the error budget lists the largest quadrature, truncation and rounding term recorded in the certificate (all are already included in the proved enclosures) " +
+		"and, as tail |B|, the tail lemmas' bound on the off-diagonal entry |B(s)| at the ends of the cover (it enters the tail bounds, it is not added to the result); " +
+		"SHA-256 gives the first 12 hex digits of the certificate hash; every bound can be re-checked with wedgecheck."
+}
 
 func writeLaTeX(b *strings.Builder, items []reportItem, standalone bool) {
 	if standalone {
@@ -611,22 +644,33 @@ func writeLaTeX(b *strings.Builder, items []reportItem, standalone bool) {
 		b.WriteString("\\setlength{\\textwidth}{6.5in}\n\\setlength{\\oddsidemargin}{0in}\n\\setlength{\\evensidemargin}{0in}\n")
 		b.WriteString("\\begin{document}\n\\begin{table}[ht]\n\\centering\n\\footnotesize\n")
 	} else {
-		b.WriteString("% wedgebound report: " + reportLegend + "\n")
+		b.WriteString("% wedgebound report: " + reportLegend("sigma") + "\n")
 	}
 	b.WriteString("\\setlength{\\tabcolsep}{3pt}\n\\renewcommand{\\arraystretch}{1.15}\n")
-	b.WriteString("\\begin{tabular}{p{3.4cm}p{2.9cm}lp{3.1cm}ll}\n\\hline\n")
-	b.WriteString("Problem & Profiles & Proved bound & Error budget & Precision & SHA-256 \\\\\n\\hline\n")
+	b.WriteString("\\begin{tabular}{p{3.4cm}p{2.9cm}p{3.2cm}p{3.1cm}ll}\n\\hline\n")
+	b.WriteString("Problem & Profiles or basis & Proved bound & Error budget & Precision & SHA-256 \\\\\n\\hline\n")
 	for _, it := range items {
 		rr := "\\raggedright "
-		cells := []string{rr + problemLaTeX(it.rel), rr + familyLaTeX(it.rel.Terms), boundLaTeX(it.rel), rr + budgetLaTeX(it.rel.Budget),
-			texEscape(precisionText(it.rel)), "\\texttt{" + texEscape(hashPrefix(it.cert)) + "}"}
+		var cells []string
+		if it.precession != nil {
+			cells = precessionCells(it, true)
+
+		} else if s := it.strip; s != nil {
+			cells = []string{rr + stripProblemLaTeX(s), rr + stripBasisLaTeX(s), rr + stripBoundLaTeX(s), rr + stripBudgetLaTeX(s),
+				stripPrecision, "\\texttt{" + texEscape(hashPrefix(it.cert)) + "}"}
+		} else {
+			cells = []string{rr + problemLaTeX(it.rel), rr + familyLaTeX(it.rel.Terms), boundLaTeX(it.rel), rr + budgetLaTeX(it.rel.Budget),
+				texEscape(precisionText(it.rel)), "\\texttt{" + texEscape(hashPrefix(it.cert)) + "}"}
+		}
 		b.WriteString(strings.Join(cells, " & ") + " \\\\\n\\hline\n")
 	}
 	b.WriteString("\\end{tabular}\n")
 	if standalone {
 		b.WriteString("\\caption{Certified spectral bounds. $\\sigma$ is the spectrum of $P\\,\\mathrm{Op}(\\chi_W)\\,P$, where $P$ projects onto " +
-			"the states whose Wigner function lives in the half-plane $H$. The error budget lists the largest term of each kind recorded in the " +
-			"certificate; all are already included in the proved enclosures. SHA-256: the first 12 hex digits of the certificate hash; every " +
+			"the states whose Wigner function lives in the half-plane $H$; for a finite strip, $\\sigma(K_\\alpha)$ is that of the strip operator " +
+			"$K_\\alpha$ and $A(\\alpha) = -\\inf\\sigma(K_\\alpha)$. The error budget lists the largest quadrature, truncation and rounding " +
+			"term recorded in the certificate, all already included in the proved enclosures, and, as tail $|B|$, the tail lemmas' bound on the " +
+			"off-diagonal entry $|B(s)|$ at the ends of the cover, which enters the tail bounds and is not added to the result. SHA-256: the first 12 hex digits of the certificate hash; every " +
 			"bound can be re-checked with \\texttt{wedgecheck}.}\n")
 		b.WriteString("\\end{table}\n\\end{document}\n")
 	}
@@ -677,17 +721,25 @@ func writeMarkdown(b *strings.Builder, items []reportItem) {
 	row := func(cells []string) {
 		b.WriteString("| " + strings.Join(cells, " | ") + " |\n")
 	}
-	row([]string{"Problem", "Profiles", "Proved bound", "Error budget", "Precision", "SHA-256"})
+	row([]string{"Problem", "Profiles or basis", "Proved bound", "Error budget", "Precision", "SHA-256"})
 	row([]string{"---", "---", "---", "---", "---", "---"})
 	for _, it := range items {
-		cells := []string{problemShort(it.rel), familyText(it.rel.Terms), boundText(it.rel), budgetText(it.rel.Budget),
-			precisionText(it.rel), hashPrefix(it.cert)}
+		var cells []string
+		if it.precession != nil {
+			cells = precessionCells(it, false)
+
+		} else if s := it.strip; s != nil {
+			cells = []string{stripProblemShort(s), stripBasisText(s), stripBoundText(s), stripBudgetText(s), stripPrecision, hashPrefix(it.cert)}
+		} else {
+			cells = []string{problemShort(it.rel), familyText(it.rel.Terms), boundText(it.rel), budgetText(it.rel.Budget),
+				precisionText(it.rel), hashPrefix(it.cert)}
+		}
 		for i := range cells {
 			cells[i] = mdEscape(cells[i])
 		}
 		row(cells)
 	}
-	b.WriteString("\n" + mdEscape(reportLegend) + "\n")
+	b.WriteString("\n" + mdEscape(reportLegend("spec")) + "\n")
 }
 
 // ---- plain-text proof summary ----
@@ -815,7 +867,7 @@ func writeSummary(b *strings.Builder, it reportItem) {
 		wv = w.EigUpper
 	}
 	cmp := edgeCmp(r)
-	para("How it is proved.", fmt.Sprintf("Split into the channels x > 0 and x < 0 and Mellin-transformed, Op(g) acts at each real s as a 2x2 Hermitian matrix M(s), and spec Op(g) is the closure of the union over s of the eigenvalues of M(s). The cover has %d cells from s = %s to s = %s, each with an interval enclosure of %s(M(s)) over the whole cell; the weakest recorded cell, s in [%s, %s], has %s %s %s. The tail lemma %s gives %s %s %s for s <= %s and %s %s %s for s >= %s. The interval arithmetic works at %d bits with outward rounding. Error budget (largest term of each kind, all included in the enclosures): %s. Every cell and both tails support the claim: this report checked that exactly from the recorded decimals (the verifier recomputes the enclosures themselves).",
+	para("How it is proved.", fmt.Sprintf("Split into the channels x > 0 and x < 0 and Mellin-transformed, Op(g) acts at each real s as a 2x2 Hermitian matrix M(s), and spec Op(g) is the closure of the union over s of the eigenvalues of M(s). The cover has %d cells from s = %s to s = %s, each with an interval enclosure of %s(M(s)) over the whole cell; the weakest recorded cell, s in [%s, %s], has %s %s %s. The tail lemma %s gives %s %s %s for s <= %s and %s %s %s for s >= %s. The interval arithmetic works at %d bits with outward rounding. Error budget (largest term of each kind; quadrature, truncation and rounding are included in the enclosures, tail |B| is the tail lemmas' bound on |B(s)| at the ends of the cover): %s. Every cell and both tails support the claim: this report checked that exactly from the recorded decimals (the verifier recomputes the enclosures themselves).",
 		len(r.Cover), r.Cover[0].Lo, r.Cover[len(r.Cover)-1].Hi, eig, w.Lo, w.Hi, eig, cmp, wv,
 		r.Below.Lemma, eig, cmp, r.Below.Bound, r.Below.From, eig, cmp, r.Above.Bound, r.Above.From,
 		r.PrecisionBits, budgetText(r.Budget)))

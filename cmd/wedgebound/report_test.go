@@ -148,7 +148,7 @@ func TestReportMarkdownTableParses(t *testing.T) {
 		t.Fatalf("exit %d: %s", code, errs)
 	}
 	header, rows := parseTable(t, out)
-	want := []string{"Problem", "Profiles", "Proved bound", "Error budget", "Precision", "SHA-256"}
+	want := []string{"Problem", "Profiles or basis", "Proved bound", "Error budget", "Precision", "SHA-256"}
 	if strings.Join(header, "|") != strings.Join(want, "|") {
 		t.Errorf("header %q, want %q", header, want)
 	}
@@ -171,7 +171,7 @@ func TestReportMarkdownTableParses(t *testing.T) {
 	if !ok || b.Cmp(ratOfString(publishedBackflow)) <= 0 {
 		t.Errorf("bound %q does not lie above the published estimate %s", r[2], publishedBackflow)
 	}
-	for _, kind := range []string{"quadrature ", "truncation ", "tails ", "rounding "} {
+	for _, kind := range []string{"quadrature ", "truncation ", "tail \\|B\\| ", "rounding "} {
 		if !strings.Contains(r[3], kind) {
 			t.Errorf("budget cell %q lacks %q", r[3], kind)
 		}
@@ -309,17 +309,17 @@ func TestReportDeterministic(t *testing.T) {
 	}
 }
 
-func TestReportOutFile(t *testing.T) {
+func TestReportSaveFile(t *testing.T) {
 	dir := t.TempDir()
 	out := filepath.Join(dir, "r.md")
-	code, stdout, errs := report("--format", "markdown", "--out", out, shippedCert)
+	code, stdout, errs := report("--format", "markdown", "--save", out, shippedCert)
 	if code != 0 || stdout != "" {
 		t.Fatalf("exit %d, stdout %q, stderr %s", code, stdout, errs)
 	}
 	_, want, _ := report("--format", "markdown", shippedCert)
 	got, err := os.ReadFile(out)
 	if err != nil || string(got) != want {
-		t.Errorf("--out file differs from standard output (%v)", err)
+		t.Errorf("--save file differs from standard output (%v)", err)
 	}
 }
 

@@ -1,7 +1,6 @@
 package main
 
 import (
-	"encoding/json"
 	"fmt"
 	"io"
 	"os"
@@ -35,9 +34,9 @@ func runSpectrum(args []string, stdout, stderr io.Writer) int {
 	quadrant := fs.Bool("quadrant", false, "the bare quadrant {x > 0, p > 0}")
 	termsFile := fs.String("terms", "", "JSON file with relaxation terms [{\"kind\":..., \"params\":{...}, \"weight\":...}] added in quadrant III")
 	termFlags := fs.StringArray("term", nil, "one relaxation term KIND,NAME=VALUE,...,weight=W (repeatable), e.g. band,from=0,to=2,weight=0.3 or hat,left=0,peak=1,right=4,weight=-0.5")
-	digits := fs.Int("digits", 12, fmt.Sprintf("significant digits wanted (1..%d for --quadrant, default 12; 1..%d with --terms, default 4)", spectrum.MaxQuadrantDigits, spectrum.MaxTermDigits))
-	asJSON := fs.Bool("json", false, "print JSON with fields inf and sup")
-	quiet := fs.Bool("quiet", false, "no progress display")
+	digits := fs.Int("digits", 0, fmt.Sprintf("correct significant digits wanted, 1..%d with --quadrant (12 if not given), 1..%d with terms (4 if not given); the bounds are printed with two more", spectrum.MaxQuadrantDigits, spectrum.MaxTermDigits))
+	asJSON := fs.Bool("json", false, helpJSON+": inf and sup, each {lower, upper}, and where they are attained")
+	quiet := addQuiet(fs)
 	fs.Usage = func() {
 		fmt.Fprintln(stderr, "usage: wedgebound spectrum (--quadrant | --terms FILE | --term SPEC ...) [--digits N] [--json]")
 		fmt.Fprintf(stderr, "term kinds: %s\n", strings.Join(regions.TermKinds(), ", "))
@@ -71,8 +70,11 @@ func runSpectrum(args []string, stdout, stderr io.Writer) int {
 			return 2
 		}
 	}
-	if !*quadrant && !fs.Changed("digits") {
-		*digits = 4
+	if !fs.Changed("digits") {
+		*digits = 12
+		if !*quadrant {
+			*digits = 4
+		}
 	}
 	if *digits < 1 || *digits > spectrum.MaxQuadrantDigits {
 		fmt.Fprintf(stderr, "wedgebound spectrum: --digits %d is outside 1..%d\n", *digits, spectrum.MaxQuadrantDigits)
@@ -114,7 +116,7 @@ func runSpectrum(args []string, stdout, stderr io.Writer) int {
 			return 2
 		}
 		bar := newProgress(stderr, *quiet)
-		r, err := spectrum.Terms(rel, *digits, bar.update)
+		r, err := spectrum.Terms(rel, *digits, bar.cover)
 		bar.done()
 		if err != nil {
 			fmt.Fprintf(stderr, "wedgebound spectrum: %v\n", err)
@@ -137,7 +139,7 @@ func runSpectrum(args []string, stdout, stderr io.Writer) int {
 			InfAt *bracket `json:"inf_at,omitempty"`
 			SupAt *bracket `json:"sup_at,omitempty"`
 		}{inf, sup, at[0], at[1]}
-		b, _ := json.MarshalIndent(out, "", "  ")
+		b, _ := marshalJSON(out)
 		fmt.Fprintln(stdout, string(b))
 		return 0
 	}

@@ -1,7 +1,7 @@
 package main
 
 import (
-	"encoding/json"
+	"bytes"
 	"errors"
 	"fmt"
 	"io"
@@ -17,30 +17,32 @@ func init() {
 	register("strip", "certified brackets of the finite-strip advantage A(alpha) and deficit", runStrip)
 }
 
-// stripInput holds the flags shared by strip and sweep for the width and
-// basis cap.
+// stripInput holds the flags shared by strip and sweep: the tolerance (the
+// width each bracket aims at), the basis cap and the workers.
 type stripInput struct {
 	width    float64
 	maxBasis int
+	workers  int
 }
 
 func (s *stripInput) add(fs *pflag.FlagSet) {
-	fs.Float64Var(&s.width, "width", strip.DefaultWidth, "target width of each bracket")
+	addTolerance(fs, &s.width, strip.DefaultWidth, "how wide each proved bracket may be (the basis grows until it is narrower)", "width")
 	fs.IntVar(&s.maxBasis, "max-basis", strip.DefaultMaxBasis, "largest basis size the automatic choice may use")
+	fs.IntVar(&s.workers, "workers", 0, helpWorkers)
 }
 
 func (s *stripInput) check() error {
 	if !(s.width > 0) || s.width > 1 {
-		return fmt.Errorf("--width %g is outside (0, 1]", s.width)
+		return fmt.Errorf("--tolerance %g is outside (0, 1]", s.width)
 	}
 	if s.maxBasis < 4 || s.maxBasis > 20000 {
 		return fmt.Errorf("--max-basis %d is outside 4..20000", s.maxBasis)
 	}
-	return nil
+	return checkWorkers(s.workers)
 }
 
 func (s *stripInput) options() strip.Options {
-	return strip.Options{Width: s.width, MaxBasis: s.maxBasis}
+	return strip.Options{Width: s.width, MaxBasis: s.maxBasis, Workers: s.workers}
 }
 
 // boundsAt writes x with digits significant digits, rounded outward.
@@ -56,14 +58,15 @@ func runStrip(args []string, stdout, stderr io.Writer) int {
 	mass := fs.String("mass", "", "particle mass with unit: kg, g, mg or u (e.g. 1u)")
 	length := fs.String("length", "", "length of the confining region with unit: m, mm, um or nm (e.g. 1um)")
 	tm := fs.String("time", "", "time allowed with unit: s, ms, us or ns (e.g. 1ms)")
-	digits := fs.Int("digits", 12, "significant digits of the printed brackets (1..17)")
-	asJSON := fs.Bool("json", false, "print the full result as JSON (fields alpha, advantage, deficit, witnesses, errors)")
-	save := fs.String("save", "", "also write the JSON result to this file")
-	out := fs.String("out", "", "also write a strip-bracket certificate to this file (check it with wedgecheck)")
+	digits := fs.Int("print-digits", 12, "significant digits of the printed brackets (1..17), each end rounded outward")
+	asJSON := fs.Bool("json", false, helpJSON+": alpha, advantage, deficit, witnesses, errors")
+	save := fs.String("save", "", helpSave)
+	out := fs.String("out", "", helpOut+": a strip-bracket certificate (check it with wedgecheck)")
+	addQuiet(fs)
 	var in stripInput
 	in.add(fs)
 	fs.Usage = func() {
-		fmt.Fprintln(stderr, "usage: wedgebound strip (--alpha A | --mass M --length L --time T) [--width W] [--digits D] [--json] [--save FILE] [--out FILE]")
+		fmt.Fprintln(stderr, "usage: wedgebound strip (--alpha A | --mass M --length L --time T) [--tolerance W] [--print-digits D] [--json] [--save FILE] [--out FILE]")
 		fs.PrintDefaults()
 	}
 	if err := fs.Parse(args); err != nil {
@@ -81,7 +84,12 @@ func runStrip(args []string, stdout, stderr io.Writer) int {
 		return fail("unexpected argument %q", fs.Arg(0))
 	}
 	if *digits < 1 || *digits > 17 {
-		return fail("--digits %d is outside 1..17", *digits)
+		return fail("--print-digits %d is outside 1..17", *digits)
+	}
+	for _, o := range [][2]string{{"--save", *save}, {"--out", *out}} {
+		if err := checkOutput(o[0], o[1]); err != nil {
+			return fail("%v", err)
+		}
 	}
 	if err := in.check(); err != nil {
 		return fail("%v", err)
@@ -105,36 +113,31 @@ func runStrip(args []string, stdout, stderr io.Writer) int {
 		return 1
 	}
 	res.Advantage, res.Deficit = adv, def
-	var js []byte
-	if *asJSON || *save != "" {
-		js, err = json.MarshalIndent(res, "", "  ")
-		if err != nil {
-			fmt.Fprintf(stderr, "wedgebound strip: %v\n", err)
-			return 1
-		}
-		js = append(js, '\n')
-	}
-	if *save != "" {
-		if err := certificates.WriteAtomic(*save, js); err != nil {
-			fmt.Fprintf(stderr, "wedgebound strip: %v\n", err)
-			return 1
-		}
-	}
 	if *out != "" {
 		c, err := res.Certificate()
-		if err == nil {
-			err = certificates.WriteFile(*out, c)
-		}
 		if err != nil {
 			fmt.Fprintf(stderr, "wedgebound strip: %v\n", err)
 			return 1
 		}
+		if err := certificates.WriteFile(*out, c); err != nil {
+			return fail("%v", err)
+		}
 	}
+	var text bytes.Buffer
 	if *asJSON {
-		stdout.Write(js)
-		return 0
+		js, err := marshalJSON(res)
+		if err != nil {
+			fmt.Fprintf(stderr, "wedgebound strip: %v\n", err)
+			return 1
+		}
+		text.Write(append(js, '\n'))
+	} else {
+		printStrip(&text, res)
 	}
-	printStrip(stdout, res)
+	if *save != "" {
+		return writeOut(stderr, "strip", *save, text.Bytes())
+	}
+	stdout.Write(text.Bytes())
 	return 0
 }
 

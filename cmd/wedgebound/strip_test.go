@@ -62,7 +62,7 @@ func TestStripJSONAlpha50(t *testing.T) {
 }
 
 func TestStripHumanOutput(t *testing.T) {
-	code, out, errs := runCmd(stripCmd, "--alpha", "10", "--digits", "8")
+	code, out, errs := runCmd(stripCmd, "--alpha", "10", "--print-digits", "8")
 	if code != 0 {
 		t.Fatalf("exit %d: %s", code, errs)
 	}
@@ -87,7 +87,7 @@ func TestStripUnits(t *testing.T) {
 func TestStripSaveIsAtomicJSON(t *testing.T) {
 	dir := t.TempDir()
 	f := filepath.Join(dir, "r.json")
-	code, _, errs := runCmd(stripCmd, "--alpha", "2", "--save", f)
+	code, _, errs := runCmd(stripCmd, "--alpha", "2", "--json", "--save", f)
 	if code != 0 {
 		t.Fatalf("exit %d: %s", code, errs)
 	}
@@ -110,7 +110,11 @@ func TestStripBadInput(t *testing.T) {
 		{"--alpha", "1", "--mass", "1u"},
 		{"--mass", "1u", "--length", "1um"},
 		{"--mass", "1u", "--length", "1 parsec", "--time", "1s"},
-		{"--alpha", "1", "--digits", "0"},
+		{"--alpha", "1", "--print-digits", "0"},
+		{"--alpha", "1", "--tolerance", "NaN"},
+		{"--alpha", "1", "--workers", "-3"},
+		{"--alpha", "1", "--out", "/"},
+		{"--alpha", "1", "--save", "/nonexistent-dir/x.txt"},
 		{"--alpha", "1", "--width", "0"},
 		{"--alpha", "1", "--width", "-1e-8"},
 		{"--alpha", "1", "--bogus"},

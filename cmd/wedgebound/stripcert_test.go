@@ -42,9 +42,12 @@ func TestStripOutWritesCertificate(t *testing.T) {
 	}
 }
 
+// An unwritable output path is bad input (exit 2), found before any work,
+// and the message names the user's path (issue 17 item 4).
 func TestStripOutBadPath(t *testing.T) {
-	code, _, errs := runCmd(stripCmd, "--alpha", "2", "--out", filepath.Join(t.TempDir(), "missing", "c.json"))
-	if code != 1 || strings.Count(strings.TrimSpace(errs), "\n") != 0 || !strings.Contains(errs, "wedgebound strip:") {
+	bad := filepath.Join(t.TempDir(), "missing", "c.json")
+	code, _, errs := runCmd(stripCmd, "--alpha", "2", "--out", bad)
+	if code != 2 || !strings.Contains(errs, bad) || strings.Contains(errs, ".tmp") || strings.Count(strings.TrimSpace(errs), "\n") != 0 || !strings.Contains(errs, "wedgebound strip:") {
 		t.Errorf("exit %d, stderr %q", code, errs)
 	}
 }

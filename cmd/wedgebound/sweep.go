@@ -51,14 +51,15 @@ func runSweep(args []string, stdout, stderr io.Writer) int {
 	to := fs.Float64("to", 1000, "largest alpha")
 	points := fs.Int("points", 13, "number of log-spaced alpha values (each rounded to 6 significant digits)")
 	csvFile := fs.String("csv", "", "write the brackets as CSV to this file")
-	svgFile := fs.String("svg", "", "write a plot of the advantage bracket against alpha to this SVG file")
-	quiet := fs.Bool("quiet", false, "no progress bar")
+	var img plotFiles
+	img.add(fs, "a plot of the advantage bracket against alpha")
+	quiet := addQuiet(fs)
 	withMatched := fs.Bool("matched", false, "also bracket the matched advantage M(alpha) at each alpha (alpha <= 400; minutes per point at large alpha) and draw it")
 	boundFile := fs.String("bound-certificate", "", "a halfplane-relaxation certificate for the backflow geometry (edge lower); its claimed bound on the backflow constant is drawn as the certified upper band (read, not verified: check it with wedgecheck)")
 	var in stripInput
 	in.add(fs)
 	fs.Usage = func() {
-		fmt.Fprintln(stderr, "usage: wedgebound sweep --from A --to B --points N [--csv FILE] [--svg FILE] [--bound-certificate FILE] [--width W] [--quiet]")
+		fmt.Fprintln(stderr, "usage: wedgebound sweep --from A --to B --points N [--csv FILE] [--svg FILE] [--png FILE] [--pdf FILE] [--bound-certificate FILE] [--tolerance W] [--workers N] [--quiet]")
 		fs.PrintDefaults()
 	}
 	if err := fs.Parse(args); err != nil {
@@ -85,6 +86,12 @@ func runSweep(args []string, stdout, stderr io.Writer) int {
 		return fail("--points 1 needs --to equal to --from")
 	}
 	if err := in.check(); err != nil {
+		return fail("%v", err)
+	}
+	if err := checkOutput("--csv", *csvFile); err != nil {
+		return fail("%v", err)
+	}
+	if err := img.check(); err != nil {
 		return fail("%v", err)
 	}
 	alphas, err := sweepAlphas(*from, *to, *points)
@@ -142,21 +149,19 @@ func runSweep(args []string, stdout, stderr io.Writer) int {
 	table := sweepCSV(rows)
 	if *csvFile != "" {
 		if err := certificates.WriteAtomic(*csvFile, table); err != nil {
-			fmt.Fprintf(stderr, "wedgebound sweep: %v\n", err)
-			return 1
+			return fail("%v", err)
 		}
 	}
-	if *svgFile != "" {
-		img, err := sweepPlot(rows, "svg", ub)
+	if img.any() {
+		p, leg, err := sweepPlot(rows, ub)
 		if err == nil {
-			err = certificates.WriteAtomic(*svgFile, img)
+			err = img.write(p, leg, 8*vg.Inch, 5.5*vg.Inch)
 		}
 		if err != nil {
-			fmt.Fprintf(stderr, "wedgebound sweep: %v\n", err)
-			return 1
+			return fail("%v", err)
 		}
 	}
-	if *csvFile == "" && *svgFile == "" {
+	if *csvFile == "" && !img.any() {
 		stdout.Write(table)
 	}
 	best := bestLower(rows)
@@ -285,9 +290,10 @@ func sweepCSV(rows []sweepPoint) []byte {
 // the best certified lower bound for the backflow constant as a band that
 // reaches up to the published estimate (dashed; not a certified value),
 // and, when ub is given, the certified upper bound as a second band that
-// reaches down to the estimate. The image format is "svg" for the command
-// (others are for inspection).
-func sweepPlot(rows []sweepPoint, format string, ub *backflowBound) ([]byte, error) {
+// reaches down to the estimate. The legend is returned apart, to be drawn
+// below the axes (renderPlot); it states the bracket widths, which are far
+// too small to see.
+func sweepPlot(rows []sweepPoint, ub *backflowBound) (*plot.Plot, plot.Legend, error) {
 	p := plot.New()
 	p.Title.Text = "Certified finite-strip advantage A(alpha)"
 	p.X.Label.Text = "alpha = m L^2 / (hbar t)"
@@ -306,34 +312,39 @@ func sweepPlot(rows []sweepPoint, format string, ub *backflowBound) ([]byte, err
 	bl := best.res.AdvantageF.Lo()
 	band, err := plotter.NewPolygon(plotter.XYs{{X: xmin, Y: bl}, {X: xmax, Y: bl}, {X: xmax, Y: publishedBackflowEstimate}, {X: xmin, Y: publishedBackflowEstimate}})
 	if err != nil {
-		return nil, err
+		return nil, plot.Legend{}, err
 	}
 	band.Color = color.NRGBA{R: 120, G: 170, B: 230, A: 110}
 	band.LineStyle.Width = 0
 	lower, err := plotter.NewLine(hrule(xmin, xmax, bl))
 	if err != nil {
-		return nil, err
+		return nil, plot.Legend{}, err
 	}
 	lower.Color = color.RGBA{B: 180, A: 255}
 	ref, err := plotter.NewLine(hrule(xmin, xmax, publishedBackflowEstimate))
 	if err != nil {
-		return nil, err
+		return nil, plot.Legend{}, err
 	}
 	ref.Dashes = []vg.Length{vg.Points(4), vg.Points(3)}
 	ref.Color = color.Gray{Y: 90}
 	upLine, upPts, err := plotter.NewLinePoints(hi)
 	if err != nil {
-		return nil, err
+		return nil, plot.Legend{}, err
 	}
 	loLine, loPts, err := plotter.NewLinePoints(lo)
 	if err != nil {
-		return nil, err
+		return nil, plot.Legend{}, err
 	}
 	upLine.Color, loLine.Color = color.RGBA{R: 200, A: 255}, color.RGBA{R: 200, A: 255}
 	upPts.Shape, loPts.Shape = draw.PyramidGlyph{}, draw.CircleGlyph{}
 	upPts.Color, loPts.Color = color.RGBA{R: 200, A: 255}, color.RGBA{R: 200, A: 255}
 	p.Add(band, lower, ref, upLine, loLine, upPts, loPts, plotter.NewGrid())
-	p.Legend.Add("certified bracket of A(alpha): upper ▲, lower ●", upLine, upPts)
+	wmin, wmax := math.Inf(1), 0.0
+	for _, r := range rows {
+		wd := r.res.AdvantageF.Hi() - r.res.AdvantageF.Lo()
+		wmin, wmax = math.Min(wmin, wd), math.Max(wmax, wd)
+	}
+	p.Legend.Add(fmt.Sprintf("certified bracket of A(alpha): upper ▲, lower ● (widths %.1e to %.1e, too narrow to see)", wmin, wmax), upLine, upPts)
 	p.Legend.Add(fmt.Sprintf("certified c_bm >= %s (alpha = %s); band up to the estimate", trimDigits(best.res.Advantage.Lower, 8), best.alpha), band, lower)
 	ymax := 0.042
 	if ub != nil {
@@ -343,13 +354,13 @@ func sweepPlot(rows []sweepPoint, format string, ub *backflowBound) ([]byte, err
 		}
 		uband, err := plotter.NewPolygon(plotter.XYs{{X: xmin, Y: from}, {X: xmax, Y: from}, {X: xmax, Y: ub.value}, {X: xmin, Y: ub.value}})
 		if err != nil {
-			return nil, err
+			return nil, plot.Legend{}, err
 		}
 		uband.Color = color.NRGBA{R: 230, G: 170, B: 90, A: 110}
 		uband.LineStyle.Width = 0
 		uline, err := plotter.NewLine(hrule(xmin, xmax, ub.value))
 		if err != nil {
-			return nil, err
+			return nil, plot.Legend{}, err
 		}
 		uline.Color = color.RGBA{R: 170, G: 90, A: 255}
 		p.Add(uband, uline)
@@ -366,11 +377,11 @@ func sweepPlot(rows []sweepPoint, format string, ub *backflowBound) ([]byte, err
 		}
 		mu, mup, err := plotter.NewLinePoints(mhi)
 		if err != nil {
-			return nil, err
+			return nil, plot.Legend{}, err
 		}
 		ml, mlp, err := plotter.NewLinePoints(mlo)
 		if err != nil {
-			return nil, err
+			return nil, plot.Legend{}, err
 		}
 		green := color.RGBA{G: 140, B: 60, A: 255}
 		mu.Color, ml.Color, mup.Color, mlp.Color = green, green, green, green
@@ -379,23 +390,12 @@ func sweepPlot(rows []sweepPoint, format string, ub *backflowBound) ([]byte, err
 		p.Legend.Add("certified bracket of the matched advantage M(alpha): upper ▲, lower ●", mu, mup)
 	}
 	p.Legend.Add("estimate 0.0384517 (Bracken & Melloy 1994, not certified)", ref)
-	p.Legend.Top = false
-	p.Legend.Left = false
-	p.Legend.YOffs = vg.Points(40)
 	p.X.Scale = plot.LogScale{}
 	p.X.Tick.Marker = plot.LogTicks{Prec: -1}
 	p.X.Min, p.X.Max = xmin, xmax
 	p.Y.Min = 0
 	p.Y.Max = ymax
-	wt, err := p.WriterTo(8*vg.Inch, 5*vg.Inch, format)
-	if err != nil {
-		return nil, err
-	}
-	var b bytes.Buffer
-	if _, err := wt.WriteTo(&b); err != nil {
-		return nil, err
-	}
-	return b.Bytes(), nil
+	return p, p.Legend, nil
 }
 
 func hrule(x0, x1, y float64) plotter.XYs {

@@ -98,8 +98,10 @@ func run(args []string, stdout, stderr io.Writer) int {
 	workers := fs.Int("workers", 0, "goroutines over cells (0: one per CPU); the result does not depend on it")
 	depth := fs.Int("max-depth", 10, "how often the verifier may bisect a recorded cell before giving up")
 	noExt := fs.Bool("no-tail-extension", false, "require the verifier's tail lemma to hold at the recorded tail starts")
+	fs.Bool("quiet", false, "no progress display on standard error (wedgecheck draws none; accepted like every wedgebound command)")
+	version := fs.Bool("version", false, "print the version and the certificate schema and kinds this verifier reads")
 	fs.Usage = func() {
-		fmt.Fprintf(stderr, "usage: wedgecheck [--json] FILE...\n\n"+
+		fmt.Fprintf(stderr, "usage: wedgecheck [--json] [--workers N] [--max-depth D] [--no-tail-extension] FILE...\n       wedgecheck --version\n\n"+
 			"Re-checks every claim of each certificate with an independent computation.\n"+
 			"Exit status: 0 all pass, 1 a claim fails (or a hash is stale), 2 unreadable or malformed input.\n\n")
 		fs.PrintDefaults()
@@ -108,6 +110,19 @@ func run(args []string, stdout, stderr io.Writer) int {
 		if errors.Is(err, pflag.ErrHelp) {
 			return exitPass
 		}
+		fmt.Fprintf(stderr, "wedgecheck: %v (see --help)\n", err)
+		return exitMalformed
+	}
+	if *version {
+		printVersion(stdout)
+		return exitPass
+	}
+	if *workers < 0 || *workers > 4096 {
+		fmt.Fprintf(stderr, "wedgecheck: --workers %d is outside 0..4096 (0: one per core)\n", *workers)
+		return exitMalformed
+	}
+	if *depth < 1 || *depth > 60 {
+		fmt.Fprintf(stderr, "wedgecheck: --max-depth %d is outside 1..60\n", *depth)
 		return exitMalformed
 	}
 	files := fs.Args()
@@ -131,6 +146,7 @@ func run(args []string, stdout, stderr io.Writer) int {
 	}
 	if *asJSON {
 		enc := json.NewEncoder(stdout)
+		enc.SetEscapeHTML(false) // ">" stays ">" in statements
 		enc.SetIndent("", " ")
 		if err := enc.Encode(reports); err != nil {
 			fmt.Fprintln(stderr, "wedgecheck:", err)
@@ -252,6 +268,14 @@ func printText(w io.Writer, r fileReport) {
 func printRelaxationText(w io.Writer, r fileReport, d *relaxation.Detail) {
 	res := r.Result
 	fmt.Fprintf(w, "      problem: %s\n", res.Problem)
+	if d.Range[0] == "" && len(res.Failures) > 0 {
+		// Stopped before the claim was read (a partial certificate, a bad
+		// edge or bound): say so instead of printing empty fields.
+		f := res.Failures[0]
+		fmt.Fprintf(w, "      not checked: %s\n", failureText(f))
+		fmt.Fprintf(w, "      recorded: %d cells, bound %s; no claim is checked, in %.2f s\n", d.Cells, res.Bound, r.Seconds)
+		return
+	}
 	if res.Pass {
 		fmt.Fprintf(w, "      proved:  %s\n", res.Statement)
 		fmt.Fprintf(w, "      bound:   %s", res.Bound)
@@ -309,4 +333,10 @@ func printFailures(w io.Writer, res *recheck.Result, what string) {
 	if n := len(res.Failures) - 1; n > 0 {
 		fmt.Fprintf(w, "      (%d further failure(s); --json lists all)\n", n)
 	}
+}
+
+// printVersion prints the program version and what it reads.
+func printVersion(w io.Writer) {
+	fmt.Fprintf(w, "wedgecheck %s\n", certificates.Version)
+	fmt.Fprintf(w, "reads schema %s, kinds %s\n", certificates.Schema, strings.Join(recheck.Kinds(), ", "))
 }
