@@ -102,7 +102,7 @@ func TestFlagsOneMeaning(t *testing.T) {
 	if strings.Contains(help, "(default 12)") {
 		t.Errorf("spectrum help repeats defaults:\n%s", help)
 	}
-	for _, cmd := range []string{"certify", "spectrum", "strip", "sweep", "demo", "const", "report", "merge", "flight", "plot", "precession"} {
+	for _, cmd := range []string{"certify", "spectrum", "strip", "sweep", "demo", "const", "report", "merge", "flight", "plot", "precession", "matched"} {
 		_, _, h := runArgs(cmd, "--help")
 		if !strings.Contains(h, "--quiet") {
 			t.Errorf("%s has no --quiet", cmd)
@@ -117,7 +117,7 @@ func TestFlagsOneMeaning(t *testing.T) {
 			t.Errorf("%s has no --workers", cmd)
 		}
 	}
-	for _, cmd := range []string{"certify", "strip", "merge", "flight", "precession"} {
+	for _, cmd := range []string{"certify", "strip", "merge", "flight", "precession", "matched"} {
 		_, _, h := runArgs(cmd, "--help")
 		if !strings.Contains(h, "--out") || !strings.Contains(h, helpOut) {
 			t.Errorf("%s: --out is not the certificate", cmd)

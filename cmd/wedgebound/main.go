@@ -9,6 +9,7 @@ import (
 	"io"
 	"os"
 	"sort"
+	"strings"
 
 	"wedgebound/certificates"
 )
@@ -70,5 +71,5 @@ func dispatch(args []string, stdout, stderr io.Writer) int {
 // printVersion prints the program version and the schema it writes.
 func printVersion(w io.Writer) {
 	fmt.Fprintf(w, "wedgebound %s\n", certificates.Version)
-	fmt.Fprintf(w, "writes and reads schema %s, kinds %s, %s, %s and %s\n", certificates.Schema, certificates.KindRelaxation, certificates.KindStrip, certificates.KindFlight, certificates.KindPrecession)
+	fmt.Fprintf(w, "writes and reads schema %s, kinds %s\n", certificates.Schema, strings.Join([]string{certificates.KindRelaxation, certificates.KindStrip, certificates.KindFlight, certificates.KindPrecession, certificates.KindMatched}, ", "))
 }

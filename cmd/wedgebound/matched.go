@@ -33,12 +33,13 @@ func runMatched(args []string, stdout, stderr io.Writer) int {
 	mass := fs.String("mass", "", "particle mass with unit: kg, g, mg or u")
 	length := fs.String("length", "", "length of the confining region with unit: m, mm, um or nm")
 	tm := fs.String("time", "", "time allowed with unit: s, ms, us or ns")
-	width := fs.Float64("width", matched.DefaultWidth, "target width of the bracket")
+	width := new(float64)
+	addTolerance(fs, width, matched.DefaultWidth, "how wide the proved bracket may be", "width")
 	asJSON := fs.Bool("json", false, "print the result as JSON (decimal-string fields lower and upper)")
-	out := fs.String("out", "", "also write a matched-bracket certificate to this file (check it with wedgecheck)")
+	out := fs.String("out", "", helpOut+": a matched-bracket certificate (check it with wedgecheck)")
 	quiet := fs.Bool("quiet", false, "no progress lines on stderr")
 	fs.Usage = func() {
-		fmt.Fprintln(stderr, "usage: wedgebound matched (--alpha A | --mass M --length L --time T) [--width W] [--json] [--out FILE] [--quiet]")
+		fmt.Fprintln(stderr, "usage: wedgebound matched (--alpha A | --mass M --length L --time T) [--tolerance W] [--json] [--out FILE] [--quiet]")
 		fs.PrintDefaults()
 	}
 	if err := fs.Parse(args); err != nil {
@@ -55,8 +56,11 @@ func runMatched(args []string, stdout, stderr io.Writer) int {
 	if fs.NArg() > 0 {
 		return fail("unexpected argument %q", fs.Arg(0))
 	}
+	if err := checkOutput("--out", *out); err != nil {
+		return fail("%v", err)
+	}
 	if !(*width > 0) || *width > 1 {
-		return fail("--width %g is outside (0, 1]", *width)
+		return fail("--tolerance %g is outside (0, 1]", *width)
 	}
 	alpha, err := alphaFromFlags(*alphaStr, *mass, *length, *tm)
 	if err != nil {
