@@ -14,7 +14,7 @@ import (
 
 func TestPrecessionCLI(t *testing.T) {
 	dir := t.TempDir()
-	small := []string{"precession", "--cutoff", "8", "--length", "300", "--witness", "300", "--quiet"}
+	small := []string{"precession", "--cutoff", "8", "--sum-length", "300", "--witness", "300", "--quiet"}
 	var out, errb bytes.Buffer
 	p1 := filepath.Join(dir, "a.json")
 	if code := dispatch(append(small, "--json", "--out", p1, "--workers", "1"), &out, &errb); code != 0 {
@@ -47,7 +47,7 @@ func TestPrecessionCLI(t *testing.T) {
 	for _, args := range [][]string{
 		{"precession", "--cutoff", "1"},
 		{"precession", "--witness", "3"},
-		{"precession", "--length", "10"},
+		{"precession", "--sum-length", "10"},
 		{"precession", "extra"},
 		{"precession", "--nope"},
 	} {
