@@ -90,9 +90,9 @@ func runReport(args []string, stdout, stderr io.Writer) int {
 		return fail(2, "%v", err)
 	} else if ok {
 		text := renderWitnessReport(*format, *standalone, ws)
-		if *out != "" {
-			if err := certificates.WriteAtomic(*out, []byte(text)); err != nil {
-				return fail(1, "writing %s: %v", *out, err)
+		if *save != "" {
+			if err := certificates.WriteAtomic(*save, []byte(text)); err != nil {
+				return fail(2, "%v", err)
 			}
 			return 0
 		}
@@ -101,6 +101,7 @@ func runReport(args []string, stdout, stderr io.Writer) int {
 	}
 	var items []reportItem
 	var brackets []bracketItem
+	var witnesses []witnessReport
 	for _, f := range fs.Args() {
 		if bi, ok, err := readBracketItem(f); ok || err != nil {
 			if err != nil {
@@ -129,6 +130,12 @@ func runReport(args []string, stdout, stderr io.Writer) int {
 		}
 		writeBrackets(&b, *format, brackets)
 		text += b.String()
+	}
+	if len(witnesses) > 0 {
+		if text != "" {
+			text += "\n"
+		}
+		text += renderWitnessReport(*format, false, witnesses)
 	}
 	if *save != "" {
 		if err := certificates.WriteAtomic(*save, []byte(text)); err != nil {

@@ -15,7 +15,9 @@ func TestReportEveryShippedCertificate(t *testing.T) {
 	var certs []string
 	kinds := map[string]bool{}
 	for _, f := range files {
-		if c, err := certificates.ReadFile(f); err == nil {
+		// Witness certificates have a report of their own (they cannot
+		// be mixed; TestWitnessReport).
+		if c, err := certificates.ReadFile(f); err == nil && c.Kind != certificates.KindWitness {
 			certs = append(certs, f)
 			kinds[c.Kind] = true
 		}
