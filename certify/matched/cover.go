@@ -70,18 +70,6 @@ func sizes(bl []block) [2]int {
 	return s
 }
 
-// layoutSizes returns the layout at split b with the given sizes.
-func layoutSizes(b float64, s [2]int) []block {
-	var bl []block
-	if b > -1 {
-		bl = append(bl, block{s: span{-1, b}, N: s[0]})
-	}
-	if b < 0 {
-		bl = append(bl, block{s: span{b, 0}, N: s[1], minus: true})
-	}
-	return bl
-}
-
 type cellOut struct {
 	ub, est float64
 	vec     []float64

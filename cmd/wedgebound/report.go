@@ -103,6 +103,10 @@ func runReport(args []string, stdout, stderr io.Writer) int {
 	var brackets []bracketItem
 	var witnesses []witnessReport
 	for _, f := range fs.Args() {
+		if w, ok, _ := readWitnessReport(f); ok {
+			witnesses = append(witnesses, w)
+			continue
+		}
 		if bi, ok, err := readBracketItem(f); ok || err != nil {
 			if err != nil {
 				return fail(2, "%s: %s", f, oneLineText(err.Error()))

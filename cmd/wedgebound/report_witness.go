@@ -15,27 +15,31 @@ type witnessReport struct {
 }
 
 // readWitnessReports reads the files when every one is a witness
-// certificate; ok is false when the first file is of another kind (the
-// relaxation report handles those). A mix of kinds is an error.
+// certificate; ok is false otherwise (a mix of kinds goes through the
+// common loop of runReport, where witnesses get their own section).
 func readWitnessReports(paths []string) (ws []witnessReport, ok bool, err error) {
-	for i, p := range paths {
-		c, err := certificates.ReadFile(p)
-		if err != nil {
-			if i == 0 {
-				return nil, false, nil // reported by the relaxation reader
-			}
-			return nil, true, fmt.Errorf("%s: %s", p, oneLineText(err.Error()))
+	for _, p := range paths {
+		w, isW, err := readWitnessReport(p)
+		if err != nil || !isW {
+			return nil, false, nil // reported by the common loop
 		}
-		isW := c.Kind == certificates.KindWitness && c.Witness != nil
-		if i == 0 && !isW {
-			return nil, false, nil
-		}
-		if !isW {
-			return nil, true, fmt.Errorf("%s: kind %q cannot share a report with halfline-witness certificates", p, c.Kind)
-		}
-		ws = append(ws, witnessReport{p, c})
+		ws = append(ws, w)
 	}
 	return ws, true, nil
+}
+
+// readWitnessReport reads one file; ok is false when it is not a
+// halfline-witness certificate (or cannot be read: the common reader
+// reports why).
+func readWitnessReport(path string) (witnessReport, bool, error) {
+	c, err := certificates.ReadFile(path)
+	if err != nil {
+		return witnessReport{}, false, nil
+	}
+	if c.Kind != certificates.KindWitness || c.Witness == nil {
+		return witnessReport{}, false, nil
+	}
+	return witnessReport{path, c}, true, nil
 }
 
 // widthRange returns the smallest and largest width of the basis.
