@@ -5,12 +5,10 @@ import (
 	"math"
 	"math/big"
 	"math/cmplx"
-	"runtime"
 	"sort"
-	"sync"
-	"sync/atomic"
 
 	"wedgebound/certificates"
+	"wedgebound/certificates/recheck/checknum"
 	"wedgebound/interval"
 )
 
@@ -356,7 +354,7 @@ func Check(w *certificates.Witness, workers int) (*Detail, []string, error) {
 	rems := make([]float64, len(ps))
 	nodes := make([]int, len(ps))
 	errs := make([]string, len(ps))
-	parallel(len(ps), workers, func(i int) {
+	checknum.For(len(ps), workers, func(i int) {
 		p := ps[i]
 		anchor := math.Round((p.lo + p.hi) / 2)
 		an := interval.PointF(anchor)
@@ -459,26 +457,4 @@ func encl(x interval.F) certificates.Interval {
 		return certificates.Interval{Lower: "unbounded", Upper: "unbounded"}
 	}
 	return certificates.Interval{Lower: lo, Upper: hi}
-}
-
-func parallel(n, workers int, body func(i int)) {
-	if workers <= 0 {
-		workers = runtime.GOMAXPROCS(0)
-	}
-	var next atomic.Int64
-	var wg sync.WaitGroup
-	for k := 0; k < workers; k++ {
-		wg.Add(1)
-		go func() {
-			defer wg.Done()
-			for {
-				i := int(next.Add(1)) - 1
-				if i >= n {
-					return
-				}
-				body(i)
-			}
-		}()
-	}
-	wg.Wait()
 }
