@@ -13,8 +13,6 @@ import (
 	"math/big"
 	"runtime"
 	"strconv"
-	"sync"
-	"sync/atomic"
 
 	"wedgebound/certificates"
 	"wedgebound/certificates/recheck/checknum"
@@ -135,33 +133,20 @@ func newTable(n int) *table {
 	sqrtPi := z.Pi().Sqrt()
 	const step = 256
 	nc := (n + step - 1) / step
-	var wg sync.WaitGroup
-	var next atomic.Int64
-	for w := 0; w < runtime.GOMAXPROCS(0); w++ {
-		wg.Add(1)
-		go func() {
-			defer wg.Done()
-			for {
-				c := int(next.Add(1)) - 1
-				if c >= nc {
-					return
-				}
-				j := c * step
-				half := interval.C[interval.F]{Re: z.Frac(int64(2*j+1), 2), Im: z.Int(0)}
-				whole := interval.C[interval.F]{Re: z.Int(int64(j + 1)), Im: z.Int(0)}
-				lg := interval.LogGamma(half).Re.Sub(interval.LogGamma(whole).Re)
-				v := interval.Exp(lg).Quo(sqrtPi)
-				for i := j; i < min(n, j+step); i++ {
-					if i > j {
-						v = v.Mul(z.Int(int64(2*i - 1))).Quo(z.Int(int64(2 * i)))
-					}
-					t.a2[i] = v
-					t.a[i] = v.Sqrt()
-				}
+	checknum.For(nc, 0, func(c int) {
+		j := c * step
+		half := interval.C[interval.F]{Re: z.Frac(int64(2*j+1), 2), Im: z.Int(0)}
+		whole := interval.C[interval.F]{Re: z.Int(int64(j + 1)), Im: z.Int(0)}
+		lg := interval.LogGamma(half).Re.Sub(interval.LogGamma(whole).Re)
+		v := interval.Exp(lg).Quo(sqrtPi)
+		for i := j; i < min(n, j+step); i++ {
+			if i > j {
+				v = v.Mul(z.Int(int64(2*i - 1))).Quo(z.Int(int64(2 * i)))
 			}
-		}()
-	}
-	wg.Wait()
+			t.a2[i] = v
+			t.a[i] = v.Sqrt()
+		}
+	})
 	return t
 }
 

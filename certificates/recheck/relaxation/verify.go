@@ -361,26 +361,13 @@ type cellResult struct {
 func (v *verifier) checkCells() {
 	rel := v.rel
 	results := make([]cellResult, len(rel.Cover))
-	jobs := make(chan int)
-	var wg sync.WaitGroup
-	for range v.opt.Workers {
-		wg.Add(1)
-		go func() {
-			defer wg.Done()
-			for i := range jobs {
-				lo, hi := v.nums.cells[i].lo, v.nums.cells[i].hi
-				results[i] = v.cell(lo, hi)
-				if results[i].failure == nil {
-					results[i].recorded = v.checkRecordedCell(rel.Cover[i], v.nums.cells[i], &results[i])
-				}
-			}
-		}()
-	}
-	for i := range rel.Cover {
-		jobs <- i
-	}
-	close(jobs)
-	wg.Wait()
+	checknum.For(len(rel.Cover), v.opt.Workers, func(i int) {
+		lo, hi := v.nums.cells[i].lo, v.nums.cells[i].hi
+		results[i] = v.cell(lo, hi)
+		if results[i].failure == nil {
+			results[i].recorded = v.checkRecordedCell(rel.Cover[i], v.nums.cells[i], &results[i])
+		}
+	})
 	for i, r := range results {
 		c := rel.Cover[i]
 		v.det.Pieces += r.pieces
@@ -641,23 +628,14 @@ func (v *verifier) checkTail(side int) {
 		const parts = 16
 		w := new(big.Rat).Quo(new(big.Rat).Sub(b, a), big.NewRat(parts, 1))
 		results := make([]cellResult, parts)
-		var wg sync.WaitGroup
-		sem := make(chan struct{}, v.opt.Workers)
-		for i := range parts {
-			wg.Add(1)
-			sem <- struct{}{}
-			go func() {
-				defer wg.Done()
-				defer func() { <-sem }()
-				lo := new(big.Rat).Add(a, new(big.Rat).Mul(w, big.NewRat(int64(i), 1)))
-				hi := new(big.Rat).Add(a, new(big.Rat).Mul(w, big.NewRat(int64(i+1), 1)))
-				if i == parts-1 {
-					hi = b
-				}
-				results[i] = v.cell(lo, hi)
-			}()
-		}
-		wg.Wait()
+		checknum.For(parts, v.opt.Workers, func(i int) {
+			lo := new(big.Rat).Add(a, new(big.Rat).Mul(w, big.NewRat(int64(i), 1)))
+			hi := new(big.Rat).Add(a, new(big.Rat).Mul(w, big.NewRat(int64(i+1), 1)))
+			if i == parts-1 {
+				hi = b
+			}
+			results[i] = v.cell(lo, hi)
+		})
 		for i, r := range results {
 			v.det.Pieces += r.pieces
 			v.det.HighPrecision += r.high
