@@ -206,8 +206,8 @@ func TestMellinTransformOfState(t *testing.T) {
 }
 
 // TestCrossCheckQuadrant compares the two computations for the quadrant.
-// The float exploration (/work/scratch/explore REPORT.md section 7, seen
-// here, not a source) found 0.1172658981 for stateReal both ways and
+// An independent float exploration made during development (seen here,
+// not a source; its script is not part of the repository) found 0.1172658981 for stateReal both ways and
 // 0.1348057005 with the conjugated B.
 func TestCrossCheckQuadrant(t *testing.T) {
 	sym := func(s float64) Symbol[interval.F] { return Quadrant(interval.PointF(s)) }
@@ -233,8 +233,8 @@ func TestCrossCheckQuadrant(t *testing.T) {
 }
 
 // TestCrossCheckExp compares the two computations for the quadrant-III
-// profile e^{-k xp}. The float exploration (/work/scratch/explore REPORT.md
-// section 2, seen here, not a source) found 0.0558205090, 0.0391105739 and
+// profile e^{-k xp}. The same independent float exploration (seen here,
+// not a source) found 0.0558205090, 0.0391105739 and
 // 0.0247065339 for k = 0.1, 1, 5 and stateReal.
 func TestCrossCheckExp(t *testing.T) {
 	seen := map[string]float64{"0.1": 0.0558205090, "1": 0.0391105739, "5": 0.0247065339}
