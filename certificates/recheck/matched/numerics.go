@@ -100,19 +100,7 @@ func legendreRows(r *checknum.Rule[interval.B], N int) [][]interval.F {
 	checknum.For(len(r.X), 0, func(i int) {
 		x := r.X[i].WithPrec(prec)
 		row := make([]interval.F, N)
-		p0, p1 := x.Int(1), x
-		for j := 0; j < N; j++ {
-			var pj interval.B
-			switch j {
-			case 0:
-				pj = p0
-			case 1:
-				pj = p1
-			default:
-				p2 := x.Mul(p1).Mul(x.Int(int64(2*j - 1))).Sub(p0.Mul(x.Int(int64(j - 1)))).Quo(x.Int(int64(j)))
-				p0, p1 = p1, p2
-				pj = p2
-			}
+		for j, pj := range checknum.Legendre(x, N) {
 			row[j] = toF(pj).Mul(interval.PointF(float64(2*j + 1)).Sqrt())
 		}
 		out[i] = row

@@ -241,19 +241,9 @@ func (r *stripRule) rows(N int, coef [2][]interval.B, workers int) *stripRows {
 			even[w], odd[w] = zb.Int(0), zb.Int(0)
 		}
 		acc := interval.PointF(0)
-		p0, p1 := c.Int(1), c
+		leg := checknum.Legendre(c, N)
 		for j := 0; j < N; j++ {
-			var pj interval.B
-			switch j {
-			case 0:
-				pj = p0
-			case 1:
-				pj = p1
-			default:
-				p2 := c.Mul(p1).Mul(c.Int(int64(2*j - 1))).Sub(p0.Mul(c.Int(int64(j - 1)))).Quo(c.Int(int64(j)))
-				p0, p1 = p1, p2
-				pj = p2
-			}
+			pj := leg[j]
 			if j > 0 {
 				pj = pj.Pad(wB.Mul(zb.Int(int64(j) * int64(j))))
 			}
