@@ -228,6 +228,22 @@ func Decode(b []byte) (*Certificate, error) {
 	return &c, nil
 }
 
+// CheckStrict reports why c, once sealed and encoded, would not pass the
+// strict reader (Decode), or nil; c itself is not changed. Certifiers call
+// it as the final check of what they are about to write.
+func CheckStrict(c *Certificate) error {
+	probe := *c
+	if err := Seal(&probe); err != nil {
+		return err
+	}
+	b, err := Encode(&probe)
+	if err != nil {
+		return err
+	}
+	_, err = Decode(b)
+	return err
+}
+
 func (c *Certificate) validate() error {
 	if c.Tool.Name == "" || c.Tool.Version == "" {
 		return errors.New("missing tool name or version")

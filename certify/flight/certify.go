@@ -66,15 +66,7 @@ func (r *Result) Certificate() (*certificates.Certificate, error) {
 		len(stages), f.Reduction.TimeOverMass, f.Reduction.Alpha, f.Reduction.Target, unit, f.Reduction.Shift, unit, f.Reduction.ShiftedTarget, unit,
 		st.Advantage.Lower, st.Advantage.Upper)
 	c := &certificates.Certificate{Kind: certificates.KindFlight, Flight: f}
-	probe := *c
-	if err := certificates.Seal(&probe); err != nil {
-		return nil, err
-	}
-	b, err := certificates.Encode(&probe)
-	if err == nil {
-		_, err = certificates.Decode(b)
-	}
-	if err != nil {
+	if err := certificates.CheckStrict(c); err != nil {
 		return nil, fmt.Errorf("flight: the certificate would not be valid: %v", err)
 	}
 	return c, nil

@@ -62,15 +62,7 @@ func (r *Result) Certificate() (*certificates.Certificate, error) {
 	m.Statement = fmt.Sprintf("For alpha = %s, the matched advantage M(alpha) (quantum detection probability minus that of the best classical particle "+
 		"with the same position and momentum distributions, over states confined to the strip) lies in [%s, %s]", av.Value, m.Lower, m.Upper)
 	c := &certificates.Certificate{Kind: certificates.KindMatched, Matched: m}
-	probe := *c
-	if err := certificates.Seal(&probe); err != nil {
-		return nil, err
-	}
-	b, err := certificates.Encode(&probe)
-	if err == nil {
-		_, err = certificates.Decode(b)
-	}
-	if err != nil {
+	if err := certificates.CheckStrict(c); err != nil {
 		return nil, fmt.Errorf("matched: the certificate would not be valid: %v", err)
 	}
 	return c, nil

@@ -145,15 +145,7 @@ func (r *Result) Certificate() (*certificates.Certificate, error) {
 	}
 	c := &certificates.Certificate{Kind: certificates.KindStrip, Strip: s}
 	// The schema's strict reading is the final check of what was written.
-	probe := *c
-	if err := certificates.Seal(&probe); err != nil {
-		return nil, err
-	}
-	b, err := certificates.Encode(&probe)
-	if err == nil {
-		_, err = certificates.Decode(b)
-	}
-	if err != nil {
+	if err := certificates.CheckStrict(c); err != nil {
 		return nil, fmt.Errorf("strip: the certificate would not be valid: %v", err)
 	}
 	return c, nil

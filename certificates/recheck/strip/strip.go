@@ -142,16 +142,9 @@ func (Checker) Check(c *certificates.Certificate, opt recheck.Options) (*recheck
 		sr:  &Detail{Alpha: s.Alpha.Value, BasisSize: s.BasisSize, Advantage: s.Advantage, Deficit: s.Deficit, Seconds: map[string]float64{}}}
 	v.res.Detail = v.sr
 	// The schema's strict reading, in case c did not come from Decode.
-	probe := *c
-	if err := certificates.Seal(&probe); err == nil {
-		b, err := certificates.Encode(&probe)
-		if err == nil {
-			_, err = certificates.Decode(b)
-		}
-		if err != nil {
-			v.fail(recheck.Failure{Where: "structure", Message: err.Error()})
-			return v.res, nil
-		}
+	if err := certificates.CheckStrict(c); err != nil {
+		v.fail(recheck.Failure{Where: "structure", Message: err.Error()})
+		return v.res, nil
 	}
 	v.res.Statement = fmt.Sprintf("A(alpha) = -inf spec K_alpha in [%s, %s] and sup spec K_alpha in [%s, %s]",
 		s.Advantage.Lower, s.Advantage.Upper, s.Deficit.Lower, s.Deficit.Upper)
