@@ -73,37 +73,27 @@ func runReport(args []string, stdout, stderr io.Writer) int {
 	if err := checkOutput("--save", *save); err != nil {
 		return fail(2, "%v", err)
 	}
-	// Only precession certificates: their own table; mixed with other
-	// kinds, they are rows of the common table below.
-	if precs, ok, err := readPrecessionItems(fs.Args()); ok && err == nil {
-		text := renderPrecessionReport(*format, *standalone, precs)
+	// emit writes the finished report to --save (atomically) or stdout.
+	emit := func(text string) int {
 		if *save != "" {
-			if err := certificates.WriteAtomic(*save, []byte(text)); err != nil {
-				return fail(2, "%v", err)
-			}
-			return 0
+			return writeOut(stderr, "report", *save, []byte(text))
 		}
 		io.WriteString(stdout, text)
 		return 0
 	}
-	if ws, ok, err := readWitnessReports(fs.Args()); err != nil {
-		return fail(2, "%v", err)
-	} else if ok {
-		text := renderWitnessReport(*format, *standalone, ws)
-		if *save != "" {
-			if err := certificates.WriteAtomic(*save, []byte(text)); err != nil {
-				return fail(2, "%v", err)
-			}
-			return 0
-		}
-		io.WriteString(stdout, text)
-		return 0
+	// Only precession certificates: their own table; mixed with other
+	// kinds, they are rows of the common table below.
+	if precs, ok, err := readPrecessionItems(fs.Args()); ok && err == nil {
+		return emit(renderPrecessionReport(*format, *standalone, precs))
+	}
+	if ws, ok := readWitnessReports(fs.Args()); ok {
+		return emit(renderWitnessReport(*format, *standalone, ws))
 	}
 	var items []reportItem
 	var brackets []bracketItem
 	var witnesses []witnessReport
 	for _, f := range fs.Args() {
-		if w, ok, _ := readWitnessReport(f); ok {
+		if w, ok := readWitnessReport(f); ok {
 			witnesses = append(witnesses, w)
 			continue
 		}
@@ -141,14 +131,7 @@ func runReport(args []string, stdout, stderr io.Writer) int {
 		}
 		text += renderWitnessReport(*format, false, witnesses)
 	}
-	if *save != "" {
-		if err := certificates.WriteAtomic(*save, []byte(text)); err != nil {
-			return fail(2, "%v", err)
-		}
-		return 0
-	}
-	io.WriteString(stdout, text)
-	return 0
+	return emit(text)
 }
 
 // readReportItem reads a certificate strictly (schema, structure, hash).

@@ -17,29 +17,26 @@ type witnessReport struct {
 // readWitnessReports reads the files when every one is a witness
 // certificate; ok is false otherwise (a mix of kinds goes through the
 // common loop of runReport, where witnesses get their own section).
-func readWitnessReports(paths []string) (ws []witnessReport, ok bool, err error) {
+func readWitnessReports(paths []string) (ws []witnessReport, ok bool) {
 	for _, p := range paths {
-		w, isW, err := readWitnessReport(p)
-		if err != nil || !isW {
-			return nil, false, nil // reported by the common loop
+		w, isW := readWitnessReport(p)
+		if !isW {
+			return nil, false // reported by the common loop
 		}
 		ws = append(ws, w)
 	}
-	return ws, true, nil
+	return ws, true
 }
 
 // readWitnessReport reads one file; ok is false when it is not a
 // halfline-witness certificate (or cannot be read: the common reader
 // reports why).
-func readWitnessReport(path string) (witnessReport, bool, error) {
+func readWitnessReport(path string) (witnessReport, bool) {
 	c, err := certificates.ReadFile(path)
-	if err != nil {
-		return witnessReport{}, false, nil
+	if err != nil || c.Kind != certificates.KindWitness || c.Witness == nil {
+		return witnessReport{}, false
 	}
-	if c.Kind != certificates.KindWitness || c.Witness == nil {
-		return witnessReport{}, false, nil
-	}
-	return witnessReport{path, c}, true, nil
+	return witnessReport{path, c}, true
 }
 
 // widthRange returns the smallest and largest width of the basis.
