@@ -119,14 +119,13 @@ func Terms(rel regions.Relaxation[interval.F], digits int, progress CoverProgres
 	if digits < 1 || digits > MaxTermDigits {
 		return [2]interval.F{}, fmt.Errorf("with terms at most %d digits are supported, not %d", MaxTermDigits, digits)
 	}
-	return Enclose(interval.F{}, rel, digits, false, progress)
+	return Enclose(interval.F{}, rel, digits, progress)
 }
 
-// Enclose encloses inf spec and sup spec of Op(g) for g = chi_Q + terms.
-// The bare quadrant (quadrant true; rel must then have no terms) uses the
-// mean-value form, which reaches any precision, with float64 cells first;
-// with terms the cells use direct enclosures. progress may be nil.
-func Enclose[T interval.Real[T]](like T, rel regions.Relaxation[T], digits int, quadrant bool, progress CoverProgress) ([2]T, error) {
+// Enclose encloses inf spec and sup spec of Op(g) for g = chi_Q + terms,
+// with direct enclosures on the cells (the bare quadrant has its own route,
+// QuadrantEdges). progress may be nil.
+func Enclose[T interval.Real[T]](like T, rel regions.Relaxation[T], digits int, progress CoverProgress) ([2]T, error) {
 	Sv := int64(8)
 	small := func(S int64) bool {
 		for _, side := range []int{-1, 1} {
@@ -147,11 +146,7 @@ func Enclose[T interval.Real[T]](like T, rel regions.Relaxation[T], digits int, 
 	}
 	S := like.Int(Sv)
 	var out [2]T
-	extra := 3
-	if !quadrant {
-		extra = 1
-	}
-	eps, err := like.Decimal(fmt.Sprintf("1e-%d", digits+extra))
+	eps, err := like.Decimal(fmt.Sprintf("1e-%d", digits+1))
 	if err != nil {
 		return out, fmt.Errorf("spectrum: target width: %w", err)
 	}
@@ -159,25 +154,15 @@ func Enclose[T interval.Real[T]](like T, rel regions.Relaxation[T], digits int, 
 	for i, e := range []regions.Edge{regions.Lower, regions.Upper} {
 		point := func(s T) T { return rel.Enclose(s).Eig(e) }
 		f := func(s T) T { return rel.Eig(s, e) }
-		var fast certify.CellFunc[T]
-		if quadrant {
-			f = func(s T) T { return regions.QuadrantEig(s, e) }
-			fast = func(s T) T {
-				v := regions.QuadrantEig(interval.F{}.Between(s.Endpoints()), e)
-				return s.Between(v.Endpoints())
-			}
-		}
 		outside := rel.Tail(S, 1).Eig(e).Hull(rel.Tail(S, -1).Eig(e))
+		// Relaxation terms move the extremum and add oscillation: scan
+		// [-24, 24] in steps of 1/8 as well.
 		var scan []*big.Rat
-		if !quadrant {
-			// Relaxation terms move the extremum and add oscillation: scan
-			// [-24, 24] in steps of 1/8 as well.
-			for k := int64(-192); k <= 192; k++ {
-				scan = append(scan, big.NewRat(k, 8))
-			}
+		for k := int64(-192); k <= 192; k++ {
+			scan = append(scan, big.NewRat(k, 8))
 		}
 		x := certify.Extreme[T]{
-			F: f, Point: point, Fast: fast, Lo: big.NewRat(-Sv, 1), Hi: big.NewRat(Sv, 1), Outside: outside, Scan: scan,
+			F: f, Point: point, Lo: big.NewRat(-Sv, 1), Hi: big.NewRat(Sv, 1), Outside: outside, Scan: scan,
 			Cells: 64, Eps: eps, Max: e == regions.Upper,
 			Options: certify.CoverOptions{MinWidth: minW, MaxCells: MaxCells},
 		}
