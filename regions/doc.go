@@ -359,8 +359,157 @@
 // these integrals (e.g. the tau-form turned to tau = 1 + i y, where
 // e^{2 i c tau} decays, which loses a factor e^{pi |s|/2} to cancellation
 // for s < 0 and so needs its own saddle-point path there) before such
-// certificates can pass. (2) Relaxations beyond squeeze invariance (symbols
-// supported off H that are not functions of xp) were not attempted.
+// certificates can pass. (2) Relaxations beyond squeeze invariance: see
+// the next section (float exploration only, nothing certified).
+//
+// # Beyond squeeze invariance (float exploration, nothing here is proved)
+//
+// Admissibility of any symbol off H. Let h be a bounded real symbol that
+// vanishes on H = {x + p > 0}. For psi in ran P the Wigner function
+// vanishes off H (support fact), so h W_psi = 0 pointwise and
+// <psi, Op(h) psi> = int int h W_psi = 0; by polarisation P Op(h) P = 0.
+// Hence g = chi_Q + h relaxes the problem exactly as in "Relaxation and
+// admissibility", with no condition on h beyond its support. (The class of
+// all X with P X P = 0 is larger still, e.g. X = 0 itself gives the
+// problem back; a relaxation is only worth anything if its spectrum is
+// computable.)
+//
+// Where the freedom is. In squeeze coordinates u = |x p|,
+// sigma = (1/2) ln|x/p| the complement of H is, exactly,
+//
+//	H^c = III  u  (II n {sigma > 0})  u  (IV n {sigma < 0})
+//
+// (in II, x < 0 < p, so x + p < 0 iff p < |x| iff sigma > 0; IV likewise).
+// So the non-invariance is a step in sigma on quadrants II and IV: at the
+// large-x end of the scale axis (sigma -> +inf) the whole of {x < 0} is
+// free, at the other end the whole of {p < 0}. Every squeeze-invariant
+// admissible symbol must vanish on II and IV, which is why the invariant
+// family is chi_Q + h(xp) on III.
+//
+// Why the invariant family plateaus, and what cannot help. The operator of
+// an invariant symbol is multiplication by a continuous 2x2 matrix M(s):
+// its spectrum is purely essential, with no eigenvalues. By Weyl's theorem
+// (common practice) a compact perturbation does not change the essential
+// spectrum, so adding Op(h) with h of bounded support (Hilbert-Schmidt)
+// or any other compact term can never raise inf spec: corrections
+// localised near the vertex are useless. Only non-compact, non-invariant
+// terms can, and they act through the ends of the scale axis. The problem
+// itself has a gap there: compressed to the half-plane {x > 0} (the
+// large-x end) Op(chi_Q) equals the compression of Op(chi_{p > 0}), a
+// projection, so its spectrum lies in [0, 1], and the same holds at the
+// other end; so -c_bm is (in all float evidence, below) an isolated
+// eigenvalue of P Op(chi_Q) P, while invariant relaxations have to push a
+// continuous spectrum edge down to it, which they cannot (plateau about
+// 0.03935 above).
+//
+// The soft-wall family (package internal/softwall, an exploration package
+// that nothing else imports): g = chi_Q + w chi_III + t chi_{H^c},
+// t >= 0. Op(chi_{H^c}) = 1 - P, so -inf spec Op(g) decreases in t (a
+// positive semi-definite term is added) and tends to c_bm as t -> inf
+// (Schur complement). At the ends g becomes the invariant
+// chi_Q + w chi_III + t chi_{x < 0} (resp. chi_{p < 0}, the mirror image
+// under (x, p) -> (p, x), implemented antiunitarily, so the same
+// spectrum), with Mellin symbol [[A, (1 + w) Re B + i (1 - w) Im B], [., w A + t]]
+// (III contributes D = w A and w conj B; chi_{x < 0} is multiplication by
+// the indicator of channel -). Its edge e(w, t) = -inf_s lambda_min is the
+// part of the spectrum the wall cannot move (heuristically the essential
+// spectrum of Op(g); not proved).
+//
+// Discretisation. Backflow picture: H = {p > 0}, wedge {p > 0, |x| < 2p}
+// (time window 4), opposite wedge {p < 0, |x| < 2|p|}; X = (x + 2p)/2,
+// P = (2p - x)/2 (determinant 1) maps them to Q, {X + P > 0} and III. The
+// Weyl kernel in the momentum representation,
+// (1/2pi) int f(x, (u + v)/2) e^{-ix(u - v)} dx, gives for -Op(g)
+//
+//	-S(u, v) [u + v > 0] + w S(u, v) [u + v < 0] - t delta(u - v) [u < 0],
+//	S(u, v) = sin(u^2 - v^2) / (pi (u - v)),
+//
+// whose block on u, v > 0 is the half-line kernel of package
+// certify/witness. It is truncated to |u| < U and sampled by Nystrom's
+// method (Gauss-Legendre panels of one local wavelength pi/u, 8 nodes;
+// 12 nodes, or panels of half the length, change the values below by at
+// most 1.3e-5 at t = 1, 1.2e-6 at t = 10 and 2e-7 at t = inf: the kernel
+// has a kink on u = -v). Checks: t = inf reproduces the strip values
+// A(50), A(200), A(800) of package certify/strip to 2e-7
+// (U = sqrt(alpha)/2); e(0, 0) is the bare quadrant's 0.1559398. The truncation is a compression, so its
+// top value approaches the relaxation's bound from below; where the top is
+// an isolated eigenvalue the error behaves like a/U + b/U^2, and the
+// column "extrap." fits that through U = 10, 14.14, 20.
+//
+// Results, w = 0 (float64, WEDGEBOUND_SLOW=1 go test -run Exploration -v
+// ./internal/softwall; seen here, not a published source):
+//
+//	t       U=10       U=14.14    U=20       extrap.    e(0, t)
+//	1       0.0395368  0.0408962  0.0419117  0.0445490  0.0076800
+//	3       0.0365619  0.0376503  0.0384384  0.0404046  0.0015182
+//	10      0.0355537  0.0365546  0.0372708  0.0390285  0.0002871
+//	30      0.0352693  0.0362460  0.0369424  0.0386432  0.0000683
+//	100     0.0351701  0.0361384  0.0368280  0.0385092  0.0000152
+//	inf     0.0351277  0.0360924  0.0367790  0.0384519  -
+//
+// The t = inf extrapolation, 0.0384519, agrees with the published
+// estimates of c_bm (0.0384517, 0.0384506) to 1e-6, which checks the
+// extrapolation. The bound of the family behaves like c_bm + 0.006/t and
+// falls below the invariant plateau (0.03935) for t of about 7 or more:
+// t = 10 gives 0.03903, t = 30 0.03864, t = 100 0.03851 (all float). The
+// ends are harmless from t = 1 on (e(0, t) <= 0.008 << c_bm), so the top
+// of the spectrum is an isolated eigenvalue there. The profile weight w on
+// III does not help (t = 10, U = 14.14: w = -0.5, -0.2, 0, 0.2 give
+// 0.0370369, 0.0366270, 0.0365546, 0.0366362). The second eigenvalue of
+// the truncations is about 1e-4 (U = 20: 0.0001285 for t = inf, 0.0001899
+// for t = 10), the third 3e-7: above 1e-3 the half-line operator has, in
+// float, exactly one eigenvalue, c_bm.
+//
+// Where it stopped. The family gains what was hoped for in float, but for
+// t < inf its bound is an eigenvalue of an operator that is no more
+// diagonal than the problem itself: certifying sup spec of
+// -Op(chi_Q + t chi_{H^c}) is as hard as certifying c_bm. Two routes were
+// measured and found wanting as they stand:
+//
+// (b) Momentum split with a crude Feshbach bound. Compressed to momenta
+// in (r, r + 10) the half-line kernel has top eigenvalue 0.0043 (r = 0.5),
+// 2.2e-4 (r = 1), 2.6e-8 (r = 2), 3e-14 (r = 3), rounding level beyond
+// (the cut makes a wedge edge lie on the boundary of {p > r}, a
+// configuration without backflow, so the high block is essentially
+// negative semi-definite). But the coupling block is of order one (a
+// Hilbert-transform-like kernel, 1/(u - v) at long range), so bounding the
+// resolvent of the high block by 1/(lambda - sup spec K22) gives
+// lambda = 0.269, 0.277, 0.282 for splits at R = 3, 5, 8 (U = 14.14,
+// where the top is 0.0361): the high block's resolvent must be resolved,
+// not bounded by a constant. The optimal state's tail
+// cos(u^2 + gamma ln u + theta)/u is exactly what that resolvent produces,
+// so an analytic model of the tail would be needed.
+//
+// Temple's inequality (the most promising path to rigour). If the
+// spectrum of the half-line operator K minus its top eigenvalue lies in
+// (-inf, rho] and phi is a normalised trial with q = <phi, K phi> > rho,
+// then (K - c_bm)(K - rho) >= 0 gives
+//
+//	c_bm <= q + eps^2/(q - rho),   eps^2 = ||K phi||^2 - q^2
+//
+// (G. Temple, Proc. R. Soc. A 119 (1928) 276; from memory). Measured on
+// the U = 20 grid with trials from smaller truncations: a Rayleigh deficit
+// of 6e-4, 3.3e-4, 1.4e-4, 6e-5 costs 4.5e-3, 2.4e-3, 9.5e-4, 3.9e-4, about
+// seven times the deficit with rho the true second eigenvalue (1.3e-4). The
+// certified witness of package certify/witness has q >= 0.03845056, within
+// about 1e-6 of the published estimates, so if the factor measured here
+// carried over, Temple's bound would land within about 1e-5 of c_bm
+// (5e-5 with rho = 0.03; below 0.0396 with a wide margin either way)
+// once two things were proved: (i) eps^2 for the witness (K^2 on the chirped
+// Gaussian basis; in the time representation of certify/witness it is a
+// double integral with the kernel int_0^inf u^k e^{-i(t - t')u^2} du, whose
+// singularity at t = t' must be handled), and (ii) a bound rho < q on the
+// rest of the spectrum, i.e. K <= rho + c |phi><phi| for some c and phi.
+// (ii) may be crude (rho = 0.03 only multiplies the loss by about 4.5),
+// but no squeeze-invariant relaxation can give it: their spectrum is all
+// essential and starts at the plateau, and a rank-one term does not move
+// an essential spectrum. The soft wall can in principle (its ends sit at
+// e(0, 1) = 0.0077), so what is missing is a rigorous count of the
+// eigenvalues of a non-invariant relaxation above rho: e.g. a partition of
+// unity in sigma (ends handled by the invariant end symbols, whose
+// commutator errors are bounded by s-derivatives of M(s), which is where
+// the slack rho - e(w, t) would be spent) with a Galerkin block for the
+// middle. That is the next step; nothing of it exists yet.
 //
 // # Quadrature
 //
