@@ -26,4 +26,8 @@
 // truncated to |u| < U and sampled by Nystrom's method on Gauss-Legendre
 // panels (Float); the ends of the scale axis, where the relaxation is again
 // squeeze invariant, are computed from the 2x2 Mellin symbol (EssEdge).
+// Two measurements for a rigorous route sit beside it: Temple's inequality
+// with trials from smaller truncations (Temple), and the half-line kernel
+// split at a momentum (Window, Split). The table in the regions doc is
+// printed by TestExploration (WEDGEBOUND_SLOW=1).
 package softwall
