@@ -370,9 +370,9 @@
 // <psi, Op(h) psi> = int int h W_psi = 0; by polarisation P Op(h) P = 0.
 // Hence g = chi_Q + h relaxes the problem exactly as in "Relaxation and
 // admissibility", with no condition on h beyond its support. (The class of
-// all X with P X P = 0 is larger still, e.g. X = 0 itself gives the
-// problem back; a relaxation is only worth anything if its spectrum is
-// computable.)
+// all X with P X P = 0 is larger still: X = P Op(chi_Q) P - Op(chi_Q)
+// gives the problem itself back, so a relaxation is only worth anything
+// if its spectrum is computable.)
 //
 // Where the freedom is. In squeeze coordinates u = |x p|,
 // sigma = (1/2) ln|x/p| the complement of H is, exactly,
