@@ -402,7 +402,7 @@
 // continuous spectrum edge down to it, which they cannot (plateau about
 // 0.03935 above).
 //
-// The soft-wall family (package internal/softwall, an exploration package
+// The soft-wall family (package regions/internal/softwall, an exploration package
 // that nothing else imports): g = chi_Q + w chi_III + t chi_{H^c},
 // t >= 0. Op(chi_{H^c}) = 1 - P, so -inf spec Op(g) decreases in t (a
 // positive semi-definite term is added) and tends to c_bm as t -> inf
@@ -437,7 +437,7 @@
 // column "extrap." fits that through U = 10, 14.14, 20.
 //
 // Results, w = 0 (float64, WEDGEBOUND_SLOW=1 go test -run Exploration -v
-// ./internal/softwall; seen here, not a published source):
+// ./regions/internal/softwall; seen here, not a published source):
 //
 //	t       U=10       U=14.14    U=20       extrap.    e(0, t)
 //	1       0.0395368  0.0408962  0.0419117  0.0445490  0.0076800

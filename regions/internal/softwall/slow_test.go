@@ -10,7 +10,7 @@ import (
 
 // TestExploration prints the float tables quoted in the section "Beyond
 // squeeze invariance" of package regions (a few minutes on one core; run
-// with WEDGEBOUND_SLOW=1 go test -run Exploration -v ./internal/softwall).
+// with WEDGEBOUND_SLOW=1 go test -run Exploration -v ./regions/internal/softwall).
 func TestExploration(t *testing.T) {
 	if os.Getenv("WEDGEBOUND_SLOW") != "1" {
 		t.Skip("set WEDGEBOUND_SLOW=1")
