@@ -194,6 +194,48 @@
 // 1966; common practice). Cells outside W and the tail lemma show that g
 // stays above g(c) elsewhere.
 //
+// Edges of a relaxation to many digits (jet.go, exp_jet.go; the driver is
+// certify/spectrum.TermEdges). With terms, D and B are sums over the
+// terms, and the eigenvalue is lambda = v -+ R with u = (A - D)/2,
+// v = (A + D)/2, R = sqrt(u^2 + |B|^2). Differentiating R^2 = u^2 + |B|^2
+// once and twice,
+//
+//	R R_s = u u_s + Re(conj B B_s),
+//	R_s^2 + R R_ss = u_s^2 + u u_ss + |B_s|^2 + Re(conj B B_ss)
+//
+// (EigJetOf), so g_s and g_ss need M_s and M_ss. The quadrant supplies A and
+// B as above. The exponential profile's D is closed form,
+// D_s = D (2 theta - pi tanh(pi s)) and
+// D_ss = D [(2 theta - pi tanh(pi s))^2 - pi^2 sech^2(pi s)] (log D is
+// 2 theta s - log cosh(pi s) + const). Its B is conj(I)/(pi (k + 2i)) with
+// I(s) = int_0^inf e^{-at}/(1 - q e^{-t}) dt (r = e^{-t}); since
+// d/ds e^{-at} = -i t e^{-at}, the n-th derivative is the same integral
+// with the factor (-i t)^n, which stays integrable, so
+// differentiation under the integral is allowed. For every s of a window the
+// integral runs on the ray t = x (1 + i dir) (dir = -1 for windows in
+// s >= 1, +1 in s <= -1, 0 otherwise): the poles t = i (2 theta + 2 pi m)
+// sit on the imaginary axis, the sector swept by the ray holds none, and
+// |e^{-at}| = e^{-x (1/2 - dir s)} decays on the ray and on the arc at
+// infinity. On |1 - q e^{-t}| >= 1 - e^{-x} and |t| = |1 + i dir| x the
+// part beyond x = X is at most
+// |1 + i dir|^{n+1} (1 - e^{-X})^{-1} int_X^inf x^n e^{-cx} dx with
+// c = min over the window of (1/2 - dir s), an incomplete gamma integral
+// in closed form. X and the Gauss-Legendre order grow with the precision
+// P so that the cut and the Bernstein-ellipse remainders of the panels
+// stay below about 2^-P; the remainders only need upper bounds of the
+// integrand on boxes, which are computed in float64 intervals.
+//
+// A relaxation may have several local minima of g of nearly equal depth
+// (the exp150 example has two, 2.9e-6 apart). Every float candidate within
+// 1e-4 of the best gets its own window W_j with its own convexity bound
+// m_j, Newton point c_j and correction g_s(c_j)^2/(2 m_j); the edge lies
+// in [min_j (g(c_j) - g_s(c_j)^2/(2 m_j)), min_j g(c_j)], provided the
+// float64 cells outside the windows and the tail lemmas show g above the
+// lower end. Newton's method here takes g_ss from the float64 jet: each
+// step then shrinks the error of c by about the relative error of g_ss
+// (1e-13), enough for a few steps at any target; the bound itself uses
+// only the proved size of g_s(c), never how c was found.
+//
 // The quadrant operator alone has inf spec = -0.15593984319124276369...
 // (at s = -0.35581989710050001273...) and sup spec = 1.0076799700700341398...
 // (at s = 0.87220286866793073874...): computed for this project with mpmath

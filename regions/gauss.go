@@ -29,7 +29,7 @@ func legendre[T interval.Real[T]](x T, n int) (pn, pn1 T) {
 }
 
 // gaussLegendre returns verified enclosures of the n-point rule at the
-// precision of like. The work is done in B at 64 extra bits (the interval
+// precision of like. The work is done in B at 64 + 2n extra bits (the interval
 // three-term recurrence loses about 1.3 n bits), then rounded outward to T.
 // Nodes are found by Newton's method on midpoints; each is then proved by a
 // sign change of P_n across a small interval, and the n disjoint sign
@@ -39,7 +39,7 @@ func gaussLegendre[T interval.Real[T]](like T, n int) (gaussRule[T], error) {
 	if r, ok := gaussCache.Load(key); ok {
 		return r.(gaussRule[T]), nil
 	}
-	prec := like.Prec() + 64
+	prec := like.Prec() + 64 + uint(2*n)
 	b := interval.NewB(0, prec)
 	half := n / 2
 	xs := make([]interval.B, n)

@@ -18,15 +18,28 @@
 // says so and gives the proved, wider enclosure; it never returns an
 // interval narrower than what was proved.
 //
-// The bare quadrant has its own route (QuadrantEdges): the value comes
-// from a Newton-located critical point and a convexity bound, so its
-// precision grows with the digits asked for without a fine cover.
+// The bare quadrant (QuadrantEdges) and relaxations of exp terms
+// (TermEdges) have a Newton route: the value comes from a Newton-located
+// critical point and a convexity bound on a window (several windows when
+// the eigenvalue has several local extrema of nearly equal depth), so its
+// precision grows with the digits asked for without a fine cover. The
+// same guarantee holds: every returned interval contains the true edge,
+// because inf over a window lies in [g(c) - g'(c)^2/(2m), g(c)] when
+// g” >= m > 0 there (regions package doc, "Edges to many digits"), and
+// float64 cells and the tail lemmas prove that g stays above the lower
+// end everywhere else. Its work is bounded too (windows, convexity cells,
+// Newton steps, cover cells, quadrature panels); a bound exceeded is an
+// error, never a silently wider or narrower result.
 //
-// Policy (how much work is spent, not what is proved): with terms, float64 intervals and at most MaxTermDigits digits. The tails are
-// pushed out (S doubles from 8 up to 2^14) until the lemmas' bound on |B|
-// is below 0.002 for s < 0 and both tail eigenvalue enclosures are
-// narrower than 0.004 (a profile reaching xp = c keeps the bound on D
-// large up to s ~ 2c).
+// Policy (how much work is spent, not what is proved): with band or hat
+// terms, float64 intervals and at most MaxCoverDigits digits; with exp
+// terms only, the Newton route at the precision of
+// regions.QuadrantEdgePrec(digits) and at most MaxTermDigits digits. The
+// tails are pushed out (S doubles from 8 up to 2^14) until the lemmas'
+// bound on |B| is below 0.002 for s < 0 and both tail eigenvalue
+// enclosures are narrower than 0.004 (a profile reaching xp = c keeps the
+// bound on D large up to s ~ 2c); the Newton route doubles S further (up to
+// 2^16) until the tails lie above the edge.
 package spectrum
 
 import (
@@ -44,10 +57,13 @@ const (
 	// MaxQuadrantDigits is the most digits Quadrant accepts (about 17000
 	// bits of working precision, a few minutes).
 	MaxQuadrantDigits = 5000
-	// MaxTermDigits is the most digits Terms accepts: with terms the cells
-	// use direct float64-interval enclosures, which settle a few digits
-	// within the cell budget.
-	MaxTermDigits = 5
+	// MaxTermDigits is the most digits TermEdges accepts (relaxations of
+	// exp terms, Newton route; about 170 bits, tens of seconds).
+	MaxTermDigits = 40
+	// MaxCoverDigits is the most digits Terms accepts (any family, direct
+	// float64-interval enclosures on cells, which settle a few digits
+	// within the cell budget).
+	MaxCoverDigits = 5
 )
 
 // Progress receives the stage and a count done of total (QuadrantEdges).
@@ -114,10 +130,12 @@ func QuadrantEdges(digits int, progress Progress) ([2]regions.QuadrantEdge, erro
 }
 
 // Terms encloses inf spec and sup spec of Op(chi_Q + terms of rel) to about
-// digits significant digits (1..MaxTermDigits) in float64 intervals.
+// digits significant digits (1..MaxCoverDigits) in float64 intervals, by a
+// cover of cells (any family; relaxations of exp terms have the Newton
+// route TermEdges).
 func Terms(rel regions.Relaxation[interval.F], digits int, progress CoverProgress) ([2]interval.F, error) {
-	if digits < 1 || digits > MaxTermDigits {
-		return [2]interval.F{}, fmt.Errorf("with terms at most %d digits are supported, not %d", MaxTermDigits, digits)
+	if digits < 1 || digits > MaxCoverDigits {
+		return [2]interval.F{}, fmt.Errorf("with band or hat terms at most %d digits are supported, not %d", MaxCoverDigits, digits)
 	}
 	return Enclose(interval.F{}, rel, digits, progress)
 }

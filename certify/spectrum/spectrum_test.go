@@ -15,7 +15,7 @@ func TestDigitLimits(t *testing.T) {
 			t.Errorf("Quadrant(%d) accepted", d)
 		}
 	}
-	for _, d := range []int{0, MaxTermDigits + 1} {
+	for _, d := range []int{0, MaxCoverDigits + 1} {
 		if _, err := Terms(regions.Relaxation[interval.F]{}, d, nil); err == nil {
 			t.Errorf("Terms(%d) accepted", d)
 		}

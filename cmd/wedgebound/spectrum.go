@@ -34,7 +34,7 @@ func runSpectrum(args []string, stdout, stderr io.Writer) int {
 	quadrant := fs.Bool("quadrant", false, "the bare quadrant {x > 0, p > 0}")
 	termsFile := fs.String("terms", "", "JSON file with relaxation terms [{\"kind\":..., \"params\":{...}, \"weight\":...}] added in quadrant III")
 	termFlags := fs.StringArray("term", nil, "one relaxation term KIND,NAME=VALUE,...,weight=W (repeatable), e.g. band,from=0,to=2,weight=0.3 or hat,left=0,peak=1,right=4,weight=-0.5")
-	digits := fs.Int("digits", 0, fmt.Sprintf("correct significant digits wanted, 1..%d with --quadrant (12 if not given), 1..%d with terms (4 if not given); the bounds are printed with two more", spectrum.MaxQuadrantDigits, spectrum.MaxTermDigits))
+	digits := fs.Int("digits", 0, fmt.Sprintf("correct significant digits wanted, 1..%d with --quadrant (12 if not given), 1..%d with exp terms only, 1..%d with band or hat terms (4 if not given with terms); the bounds are printed with two more", spectrum.MaxQuadrantDigits, spectrum.MaxTermDigits, spectrum.MaxCoverDigits))
 	asJSON := fs.Bool("json", false, helpJSON+": inf and sup, each {lower, upper}, and where they are attained")
 	quiet := addQuiet(fs)
 	fs.Usage = func() {
@@ -97,10 +97,6 @@ func runSpectrum(args []string, stdout, stderr io.Writer) int {
 			}
 		}
 	} else {
-		if *digits > spectrum.MaxTermDigits {
-			fmt.Fprintf(stderr, "wedgebound spectrum: with --terms at most %d digits are supported, not %d\n", spectrum.MaxTermDigits, *digits)
-			return 2
-		}
 		data, source := termsJSON, "--term"
 		if *termsFile != "" {
 			var err error
@@ -115,15 +111,45 @@ func runSpectrum(args []string, stdout, stderr io.Writer) int {
 			fmt.Fprintf(stderr, "wedgebound spectrum: %s: %v\n", source, err)
 			return 2
 		}
-		bar := newProgress(stderr, *quiet)
-		r, err := spectrum.Terms(rel, *digits, bar.cover)
-		bar.done()
-		if err != nil {
-			fmt.Fprintf(stderr, "wedgebound spectrum: %v\n", err)
-			return 1
-		}
-		for i := range r {
-			res[i] = interval.NewB(0, 53).Between(r[i].Endpoints())
+		if rel.HasJets() {
+			// Exp terms only: the Newton route, any digits up to MaxTermDigits.
+			if *digits > spectrum.MaxTermDigits {
+				fmt.Fprintf(stderr, "wedgebound spectrum: with exp terms at most %d digits are supported, not %d\n", spectrum.MaxTermDigits, *digits)
+				return 2
+			}
+			raw, _ := decodeTermSpecs(data) // decoded above without error
+			specs := make([]spectrum.TermSpec, len(raw))
+			for i, t := range raw {
+				specs[i] = spectrum.TermSpec{Kind: t.Kind, Params: t.Params, Weight: t.Weight}
+			}
+			bar := newProgress(stderr, *quiet)
+			rs, err := spectrum.TermEdges(specs, *digits, bar.update)
+			bar.done()
+			if err != nil {
+				fmt.Fprintf(stderr, "wedgebound spectrum: %v\n", err)
+				return 1
+			}
+			for i, r := range rs {
+				res[i] = r.Value
+				if b, err := toBracket(r.At, *digits/2+2); err == nil {
+					at[i] = &b
+				}
+			}
+		} else {
+			if *digits > spectrum.MaxCoverDigits {
+				fmt.Fprintf(stderr, "wedgebound spectrum: with band or hat terms at most %d digits are supported, not %d\n", spectrum.MaxCoverDigits, *digits)
+				return 2
+			}
+			bar := newProgress(stderr, *quiet)
+			r, err := spectrum.Terms(rel, *digits, bar.cover)
+			bar.done()
+			if err != nil {
+				fmt.Fprintf(stderr, "wedgebound spectrum: %v\n", err)
+				return 1
+			}
+			for i := range r {
+				res[i] = interval.NewB(0, 53).Between(r[i].Endpoints())
+			}
 		}
 	}
 	inf, err1 := toBracket(res[0], *digits+2)

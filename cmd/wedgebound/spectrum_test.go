@@ -3,6 +3,7 @@ package main
 import (
 	"bytes"
 	"encoding/json"
+	"math/big"
 	"os"
 	"strconv"
 	"strings"
@@ -25,6 +26,7 @@ func TestSpectrumFlagErrors(t *testing.T) {
 		{[]string{"--term", "band,from=2,to=1,weight=1"}, "from < to"},
 		{[]string{"--term", "hat,left=0,peak=1,right=2,weight=NaN"}, "not a finite number"},
 		{[]string{"--term", "band,from=0,to=1,weight=1", "--digits", "9"}, "at most 5 digits"},
+		{[]string{"--term", "exp,k=150,weight=8.46", "--digits", "41"}, "at most 40 digits"},
 		{[]string{"--quadrant", "--digits", "5001"}, "outside 1..5000"},
 		{[]string{"--quadrant", "--digits", "0"}, "outside 1..5000"},
 	} {
@@ -136,5 +138,43 @@ func TestSpectrumBandHat(t *testing.T) {
 	t.Logf("%+v", r)
 	if lo, err := strconv.ParseFloat(r.Inf.Lower, 64); err != nil || lo <= -0.15594 {
 		t.Errorf("inf spec %+v, want above -0.15594", r.Inf)
+	}
+}
+
+// TestSpectrumExpTerm runs the quadrant plus 8.46 e^{-150 xp} (given by
+// --term) at 12 digits with --json: both brackets must start with the
+// digits of the 40-digit mpmath values in testdata/terms/exp150-edges.txt
+// (floating point, not rigorous; seen here, not a published source), and
+// the attained points must be printed.
+func TestSpectrumExpTerm(t *testing.T) {
+	var out, errb bytes.Buffer
+	args := []string{"--term", "exp,k=150,weight=8.46", "--digits", "12", "--json", "--quiet"}
+	if rc := runSpectrum(args, &out, &errb); rc != 0 {
+		t.Fatalf("exit %d: %s", rc, errb.String())
+	}
+	var r struct {
+		Inf, Sup bracket
+		InfAt    *bracket `json:"inf_at"`
+	}
+	if err := json.Unmarshal(out.Bytes(), &r); err != nil {
+		t.Fatal(err)
+	}
+	for _, c := range []struct {
+		b    bracket
+		want string
+	}{{r.Inf, "-0.05264984278857743677144950893905780617331"}, {r.Sup, "1.024944652479057557979940418262658686425"}} {
+		lo, ok1 := new(big.Rat).SetString(c.b.Lower)
+		hi, ok2 := new(big.Rat).SetString(c.b.Upper)
+		want, _ := new(big.Rat).SetString(c.want)
+		if !ok1 || !ok2 || lo.Cmp(want) > 0 || hi.Cmp(want) < 0 {
+			t.Errorf("bracket %+v does not hold %s", c.b, c.want)
+			continue
+		}
+		if w, _ := new(big.Rat).Sub(hi, lo).Float64(); w > 1e-13 {
+			t.Errorf("bracket %+v is %.2g wide", c.b, w)
+		}
+	}
+	if r.InfAt == nil || !strings.HasPrefix(r.InfAt.Lower, "-0.2591794") {
+		t.Errorf("inf attained at %+v, want near -0.2591794", r.InfAt)
 	}
 }

@@ -18,16 +18,26 @@ type termSpec struct {
 	Weight string            `json:"weight"`
 }
 
-// decodeRelaxation reads a JSON array of terms strictly.
-func decodeRelaxation[T interval.Real[T]](like T, data []byte) (regions.Relaxation[T], error) {
+// decodeTermSpecs reads a JSON array of terms strictly (not yet checked
+// against the families).
+func decodeTermSpecs(data []byte) ([]termSpec, error) {
 	dec := json.NewDecoder(bytes.NewReader(data))
 	dec.DisallowUnknownFields()
 	var specs []termSpec
 	if err := dec.Decode(&specs); err != nil {
-		return regions.Relaxation[T]{}, fmt.Errorf("malformed terms: %v", err)
+		return nil, fmt.Errorf("malformed terms: %v", err)
 	}
 	if len(specs) == 0 {
-		return regions.Relaxation[T]{}, errors.New("no terms given")
+		return nil, errors.New("no terms given")
+	}
+	return specs, nil
+}
+
+// decodeRelaxation reads a JSON array of terms strictly.
+func decodeRelaxation[T interval.Real[T]](like T, data []byte) (regions.Relaxation[T], error) {
+	specs, err := decodeTermSpecs(data)
+	if err != nil {
+		return regions.Relaxation[T]{}, err
 	}
 	var rel regions.Relaxation[T]
 	for i, s := range specs {
