@@ -13,6 +13,7 @@ import (
 
 	"wedgebound/certificates"
 	"wedgebound/certificates/recheck/relaxation"
+	"wedgebound/interval"
 )
 
 // checkAll runs the command with --json on one file and returns the exit
@@ -205,25 +206,35 @@ func TestResealedFalseMutations(t *testing.T) {
 			r.Cover[i].EigLower, r.Cover[i].EigUpper = "2", "3"
 		}, exitFail, "recorded enclosure"},
 		{"cell boundary moved so that a cell takes in values below its recorded enclosure", func(t *testing.T, r *certificates.Relaxation) {
-			// The adjacent pair with the largest rise of the recorded lower end
-			// (at least 0.005, so that cell best holds values well below the
-			// lower end recorded for cell best+1).
-			best, gap := -1, big.NewRat(5, 1000)
+			// Cell best+1 is moved to start 1/64 into cell best. The pair is
+			// the one where the eigenvalue at that new start (the
+			// verifier's float64 point enclosure) lies furthest below the
+			// lower end recorded for cell best+1 (by at least 0.002), so the
+			// moved cell certainly holds values below its record.
+			m, err := relaxation.NewModel(interval.F{}, relaxation.Lower, r.Terms)
+			if err != nil {
+				t.Fatal(err)
+			}
+			best, gap := -1, 0.002
+			var b *big.Rat
 			for i := 0; i+1 < len(r.Cover); i++ {
-				a, _ := new(big.Rat).SetString(r.Cover[i].EigLower)
-				b, _ := new(big.Rat).SetString(r.Cover[i+1].EigLower)
-				if d := new(big.Rat).Sub(b, a); d.Cmp(gap) > 0 {
-					best, gap = i, d
+				lo, _ := new(big.Rat).SetString(r.Cover[i].Lo)
+				hi, _ := new(big.Rat).SetString(r.Cover[i].Hi)
+				at := new(big.Rat).Add(lo, new(big.Rat).Quo(new(big.Rat).Sub(hi, lo), big.NewRat(64, 1)))
+				at.SetString(at.FloatString(12))
+				p, err := m.Piece(at, at)
+				if err != nil {
+					t.Fatal(err)
+				}
+				next, _ := new(big.Rat).SetString(r.Cover[i+1].EigLower)
+				nf, _ := next.Float64()
+				if d := nf - p.Mid.Hi(); d > gap {
+					best, gap, b = i, d, at
 				}
 			}
 			if best < 0 {
-				t.Fatal("setup: no adjacent cells with a rise of the lower end")
+				t.Fatal("setup: no adjacent cells with a rise of the eigenvalue above the next record")
 			}
-			// Cell best+1 now starts near the start of cell best, where every
-			// value lies below its recorded lower end.
-			lo, _ := new(big.Rat).SetString(r.Cover[best].Lo)
-			hi, _ := new(big.Rat).SetString(r.Cover[best].Hi)
-			b := new(big.Rat).Add(lo, new(big.Rat).Quo(new(big.Rat).Sub(hi, lo), big.NewRat(64, 1)))
 			r.Cover[best].Hi, r.Cover[best+1].Lo = b.FloatString(12), b.FloatString(12)
 		}, exitFail, "recorded enclosure"},
 		{"tail bound below the claim", func(t *testing.T, r *certificates.Relaxation) { r.Below.Bound = "-0.07" }, exitFail, "tail_below"},

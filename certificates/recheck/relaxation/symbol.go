@@ -26,10 +26,11 @@ const (
 //
 //	M(s) = [[A, B], [conj B, D]],  A = (1 + tanh(pi s))/2,
 //	B = (i/2pi) J(s) + sum_j w_j conj(M_{+-,j}(s)),  D = sum_j w_j M_{++,j}(s),
-//	J(s) = (1/2)[digamma(3/4 + is/2) - digamma(1/4 + is/2)],
+//	J(s) = sum_{n>=0} (-1)^n/(n + 1/2 + is) = int_0^1 r^{-1/2+is}/(1+r) dr
 //
-// (derived in the regions package doc, "The quadrant"; J is the closed form of sum_n (-1)^n/(n + 1/2 + is),
-// obtained by splitting the alternating sum into even and odd n).
+// (derived in the regions package doc, "The quadrant"); the verifier sums
+// the alternating series for J by Boole's formula with its own remainder
+// bound (quadj.go), not through the digamma closed form the certifier uses.
 type Model[T interval.Real[T]] struct {
 	Edge    Edge
 	like    T
@@ -143,21 +144,15 @@ func eigDeriv[T interval.Real[T]](v, d entries[T], edge Edge) T {
 	return hp.Sub(num.Quo(r))
 }
 
-// quadJ encloses J(s) for every s in S.
-func quadJ[T interval.Real[T]](S T) interval.C[T] {
-	h := S.Scale(-1)
-	z1 := interval.C[T]{Re: S.Frac(3, 4), Im: h}
-	z2 := interval.C[T]{Re: S.Frac(1, 4), Im: h}
-	return interval.Digamma(z1).Sub(interval.Digamma(z2)).Scale(-1)
-}
+// quadJ encloses J(s) = sum_n (-1)^n/(n + 1/2 + is) for every s in S, by
+// Boole's summation formula (quadj.go).
+func quadJ[T interval.Real[T]](S T) interval.C[T] { return booleSum(S, 0) }
 
-// quadJDeriv encloses J'(s) = (i/4)[trigamma(3/4 + is/2) - trigamma(1/4 + is/2)].
+// quadJDeriv encloses J'(s) = -i K(s), K(s) = sum_n (-1)^n/(n + 1/2 + is)^2,
+// for every s in S (quadj.go).
 func quadJDeriv[T interval.Real[T]](S T) interval.C[T] {
-	h := S.Scale(-1)
-	z1 := interval.C[T]{Re: S.Frac(3, 4), Im: h}
-	z2 := interval.C[T]{Re: S.Frac(1, 4), Im: h}
-	d := interval.Trigamma(z1).Sub(interval.Trigamma(z2)).Scale(-2)
-	return interval.C[T]{Re: d.Im.Neg(), Im: d.Re}
+	k := booleSum(S, 1)
+	return interval.C[T]{Re: k.Im, Im: k.Re.Neg()}
 }
 
 // quadB returns (i/2pi) J.
