@@ -43,12 +43,18 @@
 //     |a| = sqrt(1/4 + s^2) >= sqrt(1/4 + S^2), then monotonicity of
 //     lambda_min,max in A, D and |B| (the certifier encloses the tail matrix
 //     in interval arithmetic with 1/(8S)).
-//   - Not independent, stated plainly: A(s) = (1 + tanh(pi s))/2, the
-//     quadrant's J(s) = (1/2)[psi(3/4 + is/2) - psi(1/4 + is/2)] and J'(s)
-//     through trigamma, and the closed form of the exponential term's
-//     diagonal entry are the same formulas typed again; they rest on the
-//     shared trusted package interval (digamma and trigamma by the Stirling
-//     series with the remainder bound derived there).
+//   - Quadrant function J(s) = sum_n (-1)^n/(n + 1/2 + is) and J'(s):
+//     Boole's summation formula for the alternating series (Euler
+//     polynomials, exact tangent numbers, its own remainder bound), after
+//     a shift by pairs of terms, in a centred form over each cell
+//     (recheck/relaxation/quadj.go); the certifier uses the digamma and
+//     trigamma closed forms (Stirling series with Bernoulli numbers in
+//     package interval). The two share only the definition of J.
+//   - Not independent, stated plainly: A(s) = (1 + tanh(pi s))/2 and the
+//     closed form of the exponential term's diagonal entry
+//     M_{++}(s) = e^{2 theta s}/(|k + 2i| cosh(pi s)) are the same
+//     formulas typed again; they rest on the shared trusted package
+//     interval (exp, tanh, atan).
 //
 // Strip brackets (recheck/strip; the certifier is certify/strip):
 //
@@ -67,8 +73,10 @@
 //   - alpha: re-derived from its exact value or from the physical units
 //     with its own constants.
 //   - Not independent: the Legendre values come from the same three-term
-//     recurrence j P_j = (2j - 1) s P_{j-1} - (j - 1) P_{j-2}, evaluated in
-//     interval arithmetic at the verifier's own nodes; Weyl's inequality,
+//     recurrence j P_j = (2j - 1) s P_{j-1} - (j - 1) P_{j-2}, typed twice
+//     (the certifier in certify/strip, the verifier once for the strip and
+//     matched kinds in checknum.Legendre) and evaluated in interval
+//     arithmetic at the verifier's own nodes; Weyl's inequality,
 //     the variational principle and 0 in the spectrum of a compact operator
 //     are the same mathematics.
 //

@@ -5,8 +5,8 @@
 // own, and reports every claim that does not hold.
 //
 // Trusted base. Besides the Go standard library the package uses only
-// wedgebound/interval (outward-rounded interval arithmetic, elementary
-// functions, digamma and trigamma) and wedgebound/certificates (the schema,
+// wedgebound/interval (outward-rounded interval arithmetic and elementary
+// functions; not its gamma family) and wedgebound/certificates (the schema,
 // strict decoding and the hash). It never imports the certifier's packages
 // (wedgebound/regions, wedgebound/certify); TestTrustedBase enforces this
 // with go list -deps.
@@ -17,8 +17,12 @@
 //     Normal.Compare): the map, a, b, d and the threshold d^2/(4ab); every
 //     term's profile must vanish below the threshold.
 //   - The symbol M(s) = [[A, B], [conj B, D]] of the relaxation (Model): A
-//     and the quadrant part of B in closed form (tanh, digamma), D in closed
-//     form, and the exp terms' off-diagonal integral I(s) by composite
+//     in closed form (tanh); the quadrant part of B through
+//     J(s) = sum_n (-1)^n/(n + 1/2 + is), summed by Boole's formula for
+//     alternating series with an explicit remainder (Euler polynomials,
+//     tangent numbers; quadj.go), J'(s) likewise, over whole cells in a
+//     centred form; D in closed form; and the exp terms' off-diagonal
+//     integral I(s) by composite
 //     Clenshaw-Curtis quadrature on a ray turned by +-pi/3, with a remainder
 //     bound of its own (checknum.Rule.Bound) from integrand bounds on boxes covering
 //     each panel's Bernstein ellipse, and a summed geometric series with a
