@@ -1,6 +1,9 @@
 package relaxation
 
 import (
+	"math/big"
+	"os"
+	"path/filepath"
 	"testing"
 
 	"wedgebound/certificates"
@@ -41,4 +44,54 @@ func BenchmarkRegimeBuild(b *testing.B) {
 			b.Fatal(err)
 		}
 	}
+}
+
+// benchShippedCells encloses lambda_min over every step-th recorded cell of
+// a shipped certificate (float64 intervals, one goroutine, the cells as
+// recorded, split only at the regime boundaries; the quadrature regimes
+// are built before the timer starts). It is the per-cell cost of the
+// symbol, without the bisection and the record checks of Verify.
+func benchShippedCells(b *testing.B, path string, step int) {
+	data, err := os.ReadFile(path)
+	if err != nil {
+		b.Skip("no " + path)
+	}
+	c, err := certificates.Decode(data)
+	if err != nil {
+		b.Fatal(err)
+	}
+	m, err := NewModel(interval.F{}, Lower, c.Relaxation.Terms)
+	if err != nil {
+		b.Fatal(err)
+	}
+	var pieces [][2]*big.Rat
+	for i := 0; i < len(c.Relaxation.Cover); i += step {
+		cell := c.Relaxation.Cover[i]
+		pieces = append(pieces, Pieces(rat(b, cell.Lo), rat(b, cell.Hi))...)
+	}
+	run := func() {
+		for _, p := range pieces {
+			if _, err := m.Piece(p[0], p[1]); err != nil {
+				b.Fatal(err)
+			}
+		}
+	}
+	run()
+	b.ReportMetric(float64(len(pieces)), "pieces")
+	b.ResetTimer()
+	for b.Loop() {
+		run()
+	}
+}
+
+// BenchmarkShippedCells covers testdata/backflow.json (8 exp terms), every
+// 4th cell.
+func BenchmarkShippedCells(b *testing.B) {
+	benchShippedCells(b, filepath.Join("..", "..", "..", "testdata", "backflow.json"), 4)
+}
+
+// BenchmarkShippedCellsExp20 covers testdata/backflow-exp20/backflow.json
+// (20 exp terms), every 16th cell.
+func BenchmarkShippedCellsExp20(b *testing.B) {
+	benchShippedCells(b, filepath.Join("..", "..", "..", "testdata", "backflow-exp20", "backflow.json"), 16)
 }
