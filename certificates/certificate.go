@@ -14,10 +14,8 @@ import (
 	"encoding/json"
 	"errors"
 	"fmt"
-	"math/big"
 	"os"
 	"path/filepath"
-	"strings"
 )
 
 // Schema is the version tag every certificate carries.
@@ -207,6 +205,12 @@ func Decode(b []byte) (*Certificate, error) {
 	dec.DisallowUnknownFields()
 	var c Certificate
 	if err := dec.Decode(&c); err != nil {
+		var ne *NumberError
+		if errors.As(err, &ne) {
+			if path := numberPath(b); path != "" {
+				return nil, fmt.Errorf("malformed certificate: %s: %v", path, err)
+			}
+		}
 		return nil, fmt.Errorf("malformed certificate: %v", err)
 	}
 	if dec.More() {
@@ -287,31 +291,4 @@ func (c *Certificate) validate() error {
 		return c.Witness.validate()
 	}
 	return fmt.Errorf("unknown certificate kind %q", c.Kind)
-}
-
-// Dec parses a decimal string field strictly: a finite decimal number,
-// optionally with an exponent in [-1000, 1000]; NaN, infinities, fractions
-// and empty strings are rejected. name is used in the error.
-func Dec(s, name string) (*big.Rat, error) {
-	t := strings.TrimSpace(s)
-	if t == "" {
-		return nil, fmt.Errorf("%s: missing number", name)
-	}
-	if t != s || len(t) > 20000 || strings.Trim(t, "0123456789.eE+-") != "" {
-		if strings.ContainsAny(strings.ToLower(t), "ni") { // NaN, Inf, Infinity
-			return nil, fmt.Errorf("%s: %.40q is not a finite decimal number", name, s)
-		}
-		return nil, fmt.Errorf("%s: %.40q is not a plain decimal number", name, s)
-	}
-	if i := strings.IndexAny(t, "eE"); i >= 0 {
-		var e int
-		if _, err := fmt.Sscan(t[i+1:], &e); err != nil || e > 1000 || e < -1000 {
-			return nil, fmt.Errorf("%s: %q has an exponent out of range", name, s)
-		}
-	}
-	r, ok := new(big.Rat).SetString(t)
-	if !ok {
-		return nil, fmt.Errorf("%s: %.40q is not a finite decimal number", name, s)
-	}
-	return r, nil
 }

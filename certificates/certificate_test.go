@@ -19,21 +19,21 @@ func sample() *Certificate {
 		Kind: KindRelaxation,
 		Relaxation: &Relaxation{
 			Problem: Problem{
-				Vertex: [2]string{"0", "0"}, Rays: [2][2]string{{"0", "1"}, {"-1", "1"}},
-				Halfplane: Halfplane{Normal: [2]string{"0", "1"}, Offset: "0"}, Edge: "lower",
+				Vertex: [2]Fraction{MustFraction("0"), MustFraction("0")}, Rays: [2][2]Fraction{{MustFraction("0"), MustFraction("1")}, {MustFraction("-1"), MustFraction("1")}},
+				Halfplane: Halfplane{Normal: [2]Fraction{MustFraction("0"), MustFraction("1")}, Offset: MustFraction("0")}, Edge: "lower",
 			},
-			Normal:        NormalForm{Map: [4]string{"1", "1", "-1", "0"}, A: "1", B: "1", D: "0", Threshold: "0"},
-			Terms:         []Term{{Kind: "exp", Params: map[string]string{"k": "150"}, Weight: "8.46"}},
-			Claim:         Claim{Edge: "lower", Bound: "0.06", Statement: "-inf spec(P Op(chi_W) P) <= 0.06"},
+			Normal:        NormalForm{Map: [4]Fraction{MustFraction("1"), MustFraction("1"), MustFraction("-1"), MustFraction("0")}, A: MustFraction("1"), B: MustFraction("1"), D: MustFraction("0"), Threshold: NewThreshold(new(big.Rat))},
+			Terms:         []Term{{Kind: "exp", Params: map[string]Decimal{"k": MustDecimal("150")}, Weight: MustDecimal("8.46")}},
+			Claim:         Claim{Edge: "lower", Bound: MustDecimal("0.06"), Statement: "-inf spec(P Op(chi_W) P) <= 0.06"},
 			PrecisionBits: 53,
 			Cover: []Cell{
-				{Lo: "-8", Hi: "-1", EigLower: "-0.05", EigUpper: "-0.01"},
-				{Lo: "-1", Hi: "0.5", EigLower: "-0.059", EigUpper: "0.2"},
-				{Lo: "0.5", Hi: "8", EigLower: "-0.04", EigUpper: "0.9"},
+				{Lo: MustDecimal("-8"), Hi: MustDecimal("-1"), EigLower: MustDecimal("-0.05"), EigUpper: MustDecimal("-0.01")},
+				{Lo: MustDecimal("-1"), Hi: MustDecimal("0.5"), EigLower: MustDecimal("-0.059"), EigUpper: MustDecimal("0.2")},
+				{Lo: MustDecimal("0.5"), Hi: MustDecimal("8"), EigLower: MustDecimal("-0.04"), EigUpper: MustDecimal("0.9")},
 			},
-			Below:  Tail{From: "-8", Bound: "-0.055", Lemma: "quadrant-exp-tail-v1"},
-			Above:  Tail{From: "8", Bound: "-0.055", Lemma: "quadrant-exp-tail-v1"},
-			Budget: Budget{Quadrature: "1e-15", Truncation: "1e-21", Tails: "0.05", Rounding: "2e-16"},
+			Below:  Tail{From: MustDecimal("-8"), Bound: MustDecimal("-0.055"), Lemma: "quadrant-exp-tail-v1"},
+			Above:  Tail{From: MustDecimal("8"), Bound: MustDecimal("-0.055"), Lemma: "quadrant-exp-tail-v1"},
+			Budget: Budget{Quadrature: MustDecimal("0.000000000000001"), Truncation: MustDecimal("0.000000000000000000001"), Tails: MustDecimal("0.05"), Rounding: MustDecimal("0.0000000000000002")},
 		},
 	}
 }
@@ -62,7 +62,7 @@ func TestRoundTrip(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	if d.SHA256 != c.SHA256 || d.Relaxation.Claim != c.Relaxation.Claim || d.Relaxation.Terms[0].Params["k"] != "150" {
+	if d.SHA256 != c.SHA256 || d.Relaxation.Claim.Bound.String() != c.Relaxation.Claim.Bound.String() || d.Relaxation.Claim.Statement != c.Relaxation.Claim.Statement || d.Relaxation.Terms[0].Params["k"].String() != "150" {
 		t.Errorf("round trip changed the content")
 	}
 	var compact bytes.Buffer
@@ -131,41 +131,51 @@ func TestDecodeErrors(t *testing.T) {
 		{"wrong schema", replace(`"schema": "`+Schema+`"`, `"schema": "other/v1"`), "unknown schema"},
 		{"missing schema", mut(func(c *Certificate) {}), ""}, // placeholder, replaced below
 		{"missing tool", mut(func(c *Certificate) {}), ""},
-		{"NaN", mut(func(c *Certificate) { c.Relaxation.Cover[1].EigLower = "NaN" }), "not a finite decimal"},
-		{"Inf", mut(func(c *Certificate) { c.Relaxation.Below.Bound = "-Inf" }), "not a finite decimal"},
-		{"Infinity", mut(func(c *Certificate) { c.Relaxation.Claim.Bound = "Infinity" }), "not a finite decimal"},
-		{"bad exponent", mut(func(c *Certificate) { c.Relaxation.Cover[0].Lo = "-8e100000" }), "exponent out of range"},
-		{"hex", mut(func(c *Certificate) { c.Relaxation.Terms[0].Weight = "0x10" }), "not a plain decimal"},
-		{"fraction where a decimal is required", mut(func(c *Certificate) { c.Relaxation.Claim.Bound = "3/50" }), "not a plain decimal"},
-		{"padded number", mut(func(c *Certificate) { c.Relaxation.Claim.Bound = " 0.06" }), "not a plain decimal"},
-		{"missing bound", mut(func(c *Certificate) { c.Relaxation.Claim.Bound = "" }), "claim.bound: missing number"},
-		{"missing weight", mut(func(c *Certificate) { c.Relaxation.Terms[0].Weight = "" }), "terms[0].weight: missing number"},
+		// Numbers that do not read fail in the reader, before the hash
+		// check, with the field named.
+		{"NaN", replace(`"eig_lower": "-0.059"`, `"eig_lower": "NaN"`), "relaxation.cover[1].eig_lower: \"NaN\" is not a finite decimal"},
+		{"Inf", replace(`"bound": "-0.055"`, `"bound": "-Inf"`), "not a finite decimal"},
+		{"Infinity", replace(`"bound": "0.06"`, `"bound": "Infinity"`), "not a finite decimal"},
+		{"exponent in a plain field", replace(`"lo": "-8"`, `"lo": "-8e1"`), "relaxation.cover[0].lo: \"-8e1\" is not a plain decimal"},
+		{"hex", replace(`"weight": "8.46"`, `"weight": "0x10"`), "not a plain decimal"},
+		{"fraction where a decimal is required", replace(`"bound": "0.06"`, `"bound": "3/50"`), "not a plain decimal"},
+		{"padded number", replace(`"bound": "0.06"`, `"bound": " 0.06"`), "not a plain decimal"},
+		{"missing bound", replace(`"bound": "0.06"`, `"bound": ""`), "claim.bound: missing number"},
+		{"null bound", replace(`"bound": "0.06"`, `"bound": null`), "claim.bound: missing number"},
+		{"missing weight", replace(`"weight": "8.46"`, `"weight": ""`), "terms[0].weight: missing number"},
+		{"unset weight", mut(func(c *Certificate) { c.Relaxation.Terms[0].Weight = Decimal{} }), "terms[0].weight: missing number"},
 		{"missing term kind", mut(func(c *Certificate) { c.Relaxation.Terms[0].Kind = "" }), "missing kind"},
 		{"missing params", mut(func(c *Certificate) { c.Relaxation.Terms[0].Params = nil }), "missing params"},
 		{"missing lemma", mut(func(c *Certificate) { c.Relaxation.Above.Lemma = "" }), "missing lemma"},
-		{"missing budget", mut(func(c *Certificate) { c.Relaxation.Budget.Tails = "" }), "error_budget.tails: missing number"},
-		{"negative budget", mut(func(c *Certificate) { c.Relaxation.Budget.Rounding = "-1e-16" }), "negative"},
-		{"missing threshold", mut(func(c *Certificate) { c.Relaxation.Normal.Threshold = "" }), "normal_form.threshold"},
+		{"missing budget", replace(`"tails": "0.05"`, `"tails": ""`), "error_budget.tails: missing number"},
+		{"negative budget", mut(func(c *Certificate) { c.Relaxation.Budget.Rounding = MustDecimal("-0.0000000000000001") }), "negative"},
+		{"missing threshold", mut(func(c *Certificate) { c.Relaxation.Normal.Threshold = ThresholdValue{} }), "normal_form.threshold"},
 		{"missing precision", mut(func(c *Certificate) { c.Relaxation.PrecisionBits = 0 }), "precision_bits"},
 		{"no cells", mut(func(c *Certificate) { c.Relaxation.Cover = nil }), "no cells"},
-		{"gap", mut(func(c *Certificate) { c.Relaxation.Cover[1].Lo = "-0.9" }), "gap in the cover"},
-		{"overlap", mut(func(c *Certificate) { c.Relaxation.Cover[1].Lo = "-1.5" }), "overlaps"},
-		{"lo = hi", mut(func(c *Certificate) { c.Relaxation.Cover[1].Hi = "-1"; c.Relaxation.Cover[2].Lo = "-1" }), "is not below hi"},
-		{"lo > hi", mut(func(c *Certificate) { c.Relaxation.Cover[1].Hi = "-2"; c.Relaxation.Cover[2].Lo = "-2" }), "is not below hi"},
-		{"eig order", mut(func(c *Certificate) { c.Relaxation.Cover[0].EigUpper = "-0.06" }), "eig_lower exceeds eig_upper"},
+		{"gap", mut(func(c *Certificate) { c.Relaxation.Cover[1].Lo = MustDecimal("-0.9") }), "gap in the cover"},
+		{"overlap", mut(func(c *Certificate) { c.Relaxation.Cover[1].Lo = MustDecimal("-1.5") }), "overlaps"},
+		{"lo = hi", mut(func(c *Certificate) {
+			c.Relaxation.Cover[1].Hi = MustDecimal("-1")
+			c.Relaxation.Cover[2].Lo = MustDecimal("-1")
+		}), "is not below hi"},
+		{"lo > hi", mut(func(c *Certificate) {
+			c.Relaxation.Cover[1].Hi = MustDecimal("-2")
+			c.Relaxation.Cover[2].Lo = MustDecimal("-2")
+		}), "is not below hi"},
+		{"eig order", mut(func(c *Certificate) { c.Relaxation.Cover[0].EigUpper = MustDecimal("-0.06") }), "eig_lower exceeds eig_upper"},
 		{"bad edge", mut(func(c *Certificate) { c.Relaxation.Problem.Edge = "middle" }), "problem.edge must be"},
 		{"claim edge differs", mut(func(c *Certificate) { c.Relaxation.Claim.Edge = "upper" }), "differs from problem.edge"},
-		{"tail detached below", mut(func(c *Certificate) { c.Relaxation.Below.From = "-9" }), "tail_below starts at -9"},
-		{"tail detached above", mut(func(c *Certificate) { c.Relaxation.Above.From = "8.0" }), "tail_above starts at 8.0"},
-		{"bad problem fraction", mut(func(c *Certificate) { c.Relaxation.Problem.Vertex[0] = "1/0" }), "division by zero"},
+		{"tail detached below", mut(func(c *Certificate) { c.Relaxation.Below.From = MustDecimal("-9") }), "tail_below starts at -9"},
+		{"tail detached above", mut(func(c *Certificate) { c.Relaxation.Above.From = MustDecimal("8.0") }), "tail_above starts at 8.0"},
+		{"bad problem fraction", replace(`"vertex": [`+"\n"+`    "0"`, `"vertex": [`+"\n"+`    "1/0"`), "relaxation.problem.vertex[0]: division by zero"},
 		{"unknown kind", mut(func(c *Certificate) { c.Kind = "other" }), "unknown certificate kind"},
 		{"kind mismatch", mut(func(c *Certificate) { c.Kind = KindStrip }), "exactly the strip section"},
 		{"strip incomplete", mut(func(c *Certificate) {
 			c.Kind = KindStrip
 			c.Relaxation = nil
-			c.Strip = &Strip{Alpha: StripAlpha{Value: "10"}}
+			c.Strip = &Strip{Alpha: StripAlpha{Value: MustAlpha("10")}}
 		}), "strip."},
-		{"both sections", mut(func(c *Certificate) { c.Strip = &Strip{Alpha: StripAlpha{Value: "10"}} }), "exactly the relaxation section"},
+		{"both sections", mut(func(c *Certificate) { c.Strip = stripSample().Strip }), "exactly the relaxation section"},
 		{"missing hash", replace(`"sha256": "`, `"sha256": "0`), "hash is stale"},
 	}
 	// Missing schema or tool: Seal always fills them in, so remove them from
@@ -184,27 +194,27 @@ func TestDecodeErrors(t *testing.T) {
 	}
 }
 
-// TestFrac checks exact parsing of decimals and fractions.
-func TestFrac(t *testing.T) {
+// TestParseFraction checks exact parsing of decimals and fractions.
+func TestParseFraction(t *testing.T) {
 	for s, want := range map[string]*big.Rat{
-		"1/3": big.NewRat(1, 3), "-2/4": big.NewRat(-1, 2), "0.5": big.NewRat(1, 2), "1.5e3": big.NewRat(1500, 1),
-		"2.5/0.5": big.NewRat(5, 1), "-0": big.NewRat(0, 1), "1e-3/1e-3": big.NewRat(1, 1),
+		"1/3": big.NewRat(1, 3), "-2/4": big.NewRat(-1, 2), "0.5": big.NewRat(1, 2), "1500": big.NewRat(1500, 1),
+		"2.5/0.5": big.NewRat(5, 1), "-0": big.NewRat(0, 1), "0.001/0.001": big.NewRat(1, 1),
 	} {
-		got, err := Frac(s, "x")
-		if err != nil || got.Cmp(want) != 0 {
-			t.Errorf("Frac(%q) = %v, %v; want %s", s, got, err, want.RatString())
+		got, err := ParseFraction(s)
+		if err != nil || got.Rat().Cmp(want) != 0 || got.String() != s {
+			t.Errorf("ParseFraction(%q) = %v, %v; want %s", s, got, err, want.RatString())
 		}
 	}
-	for _, s := range []string{"", "1/0", "1/", "/2", "1/2/3", "a/b", "1/ 2", " 1/2", "NaN", "Inf/1", "1e1001", "0x1/2", "1_0/3", "1/0.0"} {
-		if r, err := Frac(s, "field"); err == nil {
-			t.Errorf("Frac(%q) accepted as %s", s, r.RatString())
-		} else if !strings.HasPrefix(err.Error(), "field") {
-			t.Errorf("Frac(%q) error %q does not name the field", s, err)
+	for _, s := range []string{"", "1/0", "1/", "/2", "1/2/3", "a/b", "1/ 2", " 1/2", "NaN", "Inf/1", "1e1001", "0x1/2", "1_0/3", "1/0.0", "1.5e3", "1e-3/1e-3"} {
+		if r, err := ParseFraction(s); err == nil {
+			t.Errorf("ParseFraction(%q) accepted as %s", s, r.Rat().RatString())
+		} else if strings.Contains(err.Error(), "\n") {
+			t.Errorf("ParseFraction(%q) error %q is not one line", s, err)
 		}
 	}
-	for _, s := range []string{"1/2", "+", "-", ".", "e5", "1e", "1p3"} {
-		if _, err := Dec(s, "d"); err == nil {
-			t.Errorf("Dec(%q) accepted", s)
+	for _, s := range []string{"1/2", "+", "-", ".", "e5", "1e", "1p3", "+1", ".5", "5.", "1e5", "1E-5"} {
+		if _, err := ParseDecimal(s); err == nil {
+			t.Errorf("ParseDecimal(%q) accepted", s)
 		}
 	}
 }

@@ -17,14 +17,18 @@ func TestMissingStatement(t *testing.T) {
 	}
 }
 
-// TestDecBasePrefixes: Dec documents "a finite decimal number" and rejects
-// "0x..", but math/big also reads the prefixes 0b and 0o ("0b101" = 5,
-// "0o17" = 15), so a certificate field "0b1" is read as 1. Remedy: reject
-// the letters b, B, o, O as well (no plain decimal contains them).
+// TestDecBasePrefixes: math/big reads the prefixes 0x, 0b and 0o
+// ("0b101" = 5, "0o17" = 15); no grammar of the schema may accept them.
 func TestDecBasePrefixes(t *testing.T) {
-	for _, s := range []string{"0b1", "0B101", "0o17", "0O7", "-0b1"} {
-		if r, err := Dec(s, "d"); err == nil {
-			t.Errorf("Dec(%q) accepted as %s", s, r.RatString())
+	for _, s := range []string{"0b1", "0B101", "0o17", "0O7", "-0b1", "0x10", "0X1p3"} {
+		if r, err := ParseDecimal(s); err == nil {
+			t.Errorf("ParseDecimal(%q) accepted as %s", s, r)
+		}
+		if r, err := ParseSci(s); err == nil {
+			t.Errorf("ParseSci(%q) accepted as %s", s, r)
+		}
+		if r, err := ParseFraction(s + "/1"); err == nil {
+			t.Errorf("ParseFraction(%q) accepted as %s", s+"/1", r)
 		}
 	}
 }

@@ -54,11 +54,11 @@ type FlightStage struct {
 // time_over_mass in s/kg, shift and targets in metres; scaled input in the
 // scaled units.
 type FlightReduction struct {
-	TimeOverMass  string `json:"time_over_mass"`
-	Alpha         string `json:"alpha"`
-	Shift         string `json:"shift"`
-	Target        string `json:"target"`
-	ShiftedTarget string `json:"shifted_target"`
+	TimeOverMass  Fraction   `json:"time_over_mass"`
+	Alpha         AlphaValue `json:"alpha"`
+	Shift         Fraction   `json:"shift"`
+	Target        Fraction   `json:"target"`
+	ShiftedTarget Fraction   `json:"shifted_target"`
 }
 
 func (f *Flight) validate() error {
@@ -72,25 +72,22 @@ func (f *Flight) validate() error {
 		}
 	}
 	r := f.Reduction
-	tm, err := Frac(r.TimeOverMass, "flight.reduction.time_over_mass")
-	if err != nil {
+	var fs fields
+	fs.add("flight.reduction.time_over_mass", r.TimeOverMass)
+	fs.add("flight.reduction.alpha", r.Alpha)
+	fs.add("flight.reduction.shift", r.Shift)
+	fs.add("flight.reduction.target", r.Target)
+	fs.add("flight.reduction.shifted_target", r.ShiftedTarget)
+	if err := fs.check(); err != nil {
 		return err
 	}
-	if tm.Sign() <= 0 {
+	if r.TimeOverMass.Sign() <= 0 {
 		return errors.New("flight.reduction.time_over_mass must be positive")
-	}
-	if _, _, err := ParseStripAlpha(r.Alpha); err != nil {
-		return fmt.Errorf("flight.reduction.alpha: %v", err)
-	}
-	for _, x := range []struct{ v, n string }{{r.Shift, "shift"}, {r.Target, "target"}, {r.ShiftedTarget, "shifted_target"}} {
-		if _, err := Frac(x.v, "flight.reduction."+x.n); err != nil {
-			return err
-		}
 	}
 	if err := f.Strip.validate(); err != nil {
 		return fmt.Errorf("flight.%v", err)
 	}
-	if f.Strip.Alpha.Value != r.Alpha || f.Strip.Alpha.Units != nil {
+	if f.Strip.Alpha.Value.String() != r.Alpha.String() || f.Strip.Alpha.Units != nil {
 		return fmt.Errorf("flight.strip.alpha %q is not the reduced alpha %q (without units)", f.Strip.Alpha.Value, r.Alpha)
 	}
 	return nil

@@ -35,12 +35,12 @@ const (
 // polynomials sqrt((2j+1)/(hi-lo)) P_j((2x - lo - hi)/(hi - lo)) on each
 // piece [-1, s] and [s, 0] of the split at s (the witness's V, a cell's
 // Hi), Sizes[0] on the first piece and Sizes[1] on the second (0 for an
-// empty piece), coefficients in that order. Threshold and cell ends are
-// exact decimals.
+// empty piece), coefficients in that order. Threshold, cell ends and
+// coefficients are floats written exactly (SciDecimal).
 type Matched struct {
 	Alpha     StripAlpha       `json:"alpha"`
-	Lower     string           `json:"lower"`
-	Upper     string           `json:"upper"`
+	Lower     Decimal          `json:"lower"`
+	Upper     Decimal          `json:"upper"`
 	Witness   MatchedWitness   `json:"witness"`
 	Cells     []MatchedCell    `json:"cells"`
 	Statement string           `json:"statement"`
@@ -49,26 +49,26 @@ type Matched struct {
 
 // MatchedWitness is the inner-side state at threshold V.
 type MatchedWitness struct {
-	V            string   `json:"v"`
-	Sizes        [2]int   `json:"sizes"`
-	Coefficients []string `json:"coefficients"`
-	Rayleigh     string   `json:"rayleigh"`
+	V            SciDecimal   `json:"v"`
+	Sizes        [2]int       `json:"sizes"`
+	Coefficients []SciDecimal `json:"coefficients"`
+	Rayleigh     Decimal      `json:"rayleigh"`
 }
 
 // MatchedCell claims lambda_max(C_Lo - 1[x > Hi]) <= Upper; Sizes is the
 // basis the certifier used (a verifier may use it).
 type MatchedCell struct {
-	Lo    string `json:"lo"`
-	Hi    string `json:"hi"`
-	Sizes [2]int `json:"sizes"`
-	Upper string `json:"upper"`
+	Lo    SciDecimal `json:"lo"`
+	Hi    SciDecimal `json:"hi"`
+	Sizes [2]int     `json:"sizes"`
+	Upper Decimal    `json:"upper"`
 }
 
 // MatchedCertifier is informational.
 type MatchedCertifier struct {
-	Method      string `json:"method"`
-	WidthTarget string `json:"width_target"`
-	Estimate    string `json:"estimate"`
+	Method      string     `json:"method"`
+	WidthTarget SciDecimal `json:"width_target"`
+	Estimate    SciDecimal `json:"estimate"`
 }
 
 func checkSizes(s [2]int, split *big.Rat, name string) error {
@@ -85,31 +85,23 @@ func checkSizes(s [2]int, split *big.Rat, name string) error {
 }
 
 func (m *Matched) validate() error {
-	if _, twoPi, err := ParseStripAlpha(m.Alpha.Value); err != nil {
-		return fmt.Errorf("matched.alpha: %v", err)
-	} else if m.Alpha.Units != nil && !twoPi {
-		return errors.New("matched.alpha: physical units are given but the value is not of the form 2*pi*r")
-	}
-	lo, err := Dec(m.Lower, "matched.lower")
-	if err != nil {
+	if err := m.Alpha.check("matched.alpha"); err != nil {
 		return err
 	}
-	hi, err := Dec(m.Upper, "matched.upper")
-	if err != nil {
+	var fs fields
+	fs.add("matched.lower", m.Lower)
+	fs.add("matched.upper", m.Upper)
+	fs.add("matched.witness.rayleigh", m.Witness.Rayleigh)
+	fs.add("matched.witness.v", m.Witness.V)
+	fs.add("matched.certifier.width_target", m.Certifier.WidthTarget)
+	fs.add("matched.certifier.estimate", m.Certifier.Estimate)
+	if err := fs.check(); err != nil {
 		return err
 	}
-	if lo.Cmp(hi) > 0 {
+	if m.Lower.Cmp(m.Upper.Rat()) > 0 {
 		return errors.New("matched: lower exceeds upper")
 	}
-	for _, f := range []struct{ v, n string }{{m.Alpha.Lower, "matched.alpha.lower"}, {m.Alpha.Upper, "matched.alpha.upper"}, {m.Witness.Rayleigh, "matched.witness.rayleigh"}} {
-		if _, err := Dec(f.v, f.n); err != nil {
-			return err
-		}
-	}
-	v, err := Dec(m.Witness.V, "matched.witness.v")
-	if err != nil {
-		return err
-	}
+	v := m.Witness.V.Rat()
 	if v.Cmp(big.NewRat(-1, 1)) < 0 || v.Sign() > 0 {
 		return errors.New("matched.witness.v is outside [-1, 0]")
 	}
@@ -121,11 +113,11 @@ func (m *Matched) validate() error {
 	}
 	nonzero := false
 	for i, c := range m.Witness.Coefficients {
-		r, err := Dec(c, fmt.Sprintf("matched.witness.coefficients[%d]", i))
-		if err != nil {
-			return err
-		}
-		nonzero = nonzero || r.Sign() != 0
+		fs.add(fmt.Sprintf("matched.witness.coefficients[%d]", i), c)
+		nonzero = nonzero || c.Sign() != 0
+	}
+	if err := fs.check(); err != nil {
+		return err
 	}
 	if !nonzero {
 		return errors.New("matched.witness: the zero vector is not a state")
@@ -136,24 +128,19 @@ func (m *Matched) validate() error {
 	prev := big.NewRat(-1, 1)
 	for i, c := range m.Cells {
 		name := fmt.Sprintf("matched.cells[%d]", i)
-		a, err := Dec(c.Lo, name+".lo")
-		if err != nil {
+		fs.add(name+".lo", c.Lo)
+		fs.add(name+".hi", c.Hi)
+		fs.add(name+".upper", c.Upper)
+		if err := fs.check(); err != nil {
 			return err
 		}
-		b, err := Dec(c.Hi, name+".hi")
-		if err != nil {
+		if c.Lo.Cmp(prev) != 0 || c.Lo.Cmp(c.Hi.Rat()) >= 0 {
+			return fmt.Errorf("%s: [%s, %s] does not continue the cover at %s", name, c.Lo, c.Hi, FractionText(prev))
+		}
+		if err := checkSizes(c.Sizes, c.Hi.Rat(), name); err != nil {
 			return err
 		}
-		if a.Cmp(prev) != 0 || a.Cmp(b) >= 0 {
-			return fmt.Errorf("%s: [%s, %s] does not continue the cover at %s", name, c.Lo, c.Hi, prev.RatString())
-		}
-		if _, err := Dec(c.Upper, name+".upper"); err != nil {
-			return err
-		}
-		if err := checkSizes(c.Sizes, b, name); err != nil {
-			return err
-		}
-		prev = b
+		prev = c.Hi.Rat()
 	}
 	if prev.Sign() != 0 {
 		return errors.New("matched.cells: the cover does not end at 0")

@@ -41,9 +41,9 @@ func Merge(parts []*Certificate, names ...string) (*Certificate, error) {
 		ps[i] = part{c.Relaxation, name(i)}
 	}
 	same := func(a, b any) bool {
-		x, _ := json.Marshal(a)
-		y, _ := json.Marshal(b)
-		return string(x) == string(y)
+		x, err1 := json.Marshal(a)
+		y, err2 := json.Marshal(b)
+		return err1 == nil && err2 == nil && string(x) == string(y)
 	}
 	// The run's inputs first: parts of different runs differ there, and
 	// everything else (range, count) follows from them.
@@ -56,7 +56,7 @@ func Merge(parts []*Certificate, names ...string) (*Certificate, error) {
 		}{{"problem", r.Problem, o.Problem}, {"normal form", r.Normal, o.Normal}, {"terms (profiles or weights)", r.Terms, o.Terms},
 			{"precision", r.PrecisionBits, o.PrecisionBits}, {"claim edge", r.Claim.Edge, o.Claim.Edge},
 			{"shard count", r.Shard.Count, o.Shard.Count},
-			{"full range", [2]string{r.Shard.Lo, r.Shard.Hi}, [2]string{o.Shard.Lo, o.Shard.Hi}},
+			{"full range", [2]Decimal{r.Shard.Lo, r.Shard.Hi}, [2]Decimal{o.Shard.Lo, o.Shard.Hi}},
 			{"tail_below", r.Below, o.Below}, {"tail_above", r.Above, o.Above}} {
 			if !same(f.a, f.b) {
 				return nil, fmt.Errorf("merge: %s (shard %d/%d) and %s (shard %d/%d) have different %s: they come from different runs",
@@ -88,35 +88,23 @@ func Merge(parts []*Certificate, names ...string) (*Certificate, error) {
 	out := *rs[0]
 	out.Shard = nil
 	out.Cover = nil
-	claim, err := Dec(rs[0].Claim.Bound, "shard 0 claim.bound")
-	if err != nil {
-		return nil, err
-	}
+	claim := rs[0].Claim.Bound
 	budget := rs[0].Budget
 	for i, r := range rs {
-		if len(out.Cover) > 0 && out.Cover[len(out.Cover)-1].Hi != r.Cover[0].Lo {
-			a, err1 := Dec(out.Cover[len(out.Cover)-1].Hi, fmt.Sprintf("shard %d last hi", i-1))
-			b, err2 := Dec(r.Cover[0].Lo, fmt.Sprintf("shard %d first lo", i))
-			if err := errors.Join(err1, err2); err != nil {
-				return nil, err
-			}
-			if a.Cmp(b) < 0 {
+		if len(out.Cover) > 0 && out.Cover[len(out.Cover)-1].Hi.String() != r.Cover[0].Lo.String() {
+			if out.Cover[len(out.Cover)-1].Hi.Cmp(r.Cover[0].Lo.Rat()) < 0 {
 				return nil, fmt.Errorf("merge: gap between shard %d/%d and shard %d/%d: (%s, %s) is not covered", i, n, i+1, n, out.Cover[len(out.Cover)-1].Hi, r.Cover[0].Lo)
 			}
 			return nil, fmt.Errorf("merge: shards %d/%d and %d/%d overlap at %s", i, n, i+1, n, r.Cover[0].Lo)
 		}
 		out.Cover = append(out.Cover, r.Cover...)
-		c, err := Dec(r.Claim.Bound, fmt.Sprintf("shard %d/%d claim.bound", i+1, n))
-		if err != nil {
-			return nil, err
-		}
-		if c.Cmp(claim) > 0 {
-			claim = c
+		if r.Claim.Bound.Cmp(claim.Rat()) > 0 {
+			claim = r.Claim.Bound
 			out.Claim = r.Claim
 		}
 		budget = maxBudget(budget, r.Budget)
 	}
-	if out.Cover[0].Lo != rs[0].Shard.Lo || out.Cover[len(out.Cover)-1].Hi != rs[0].Shard.Hi {
+	if out.Cover[0].Lo.String() != rs[0].Shard.Lo.String() || out.Cover[len(out.Cover)-1].Hi.String() != rs[0].Shard.Hi.String() {
 		return nil, fmt.Errorf("merge: the shards cover [%s, %s], not the full range [%s, %s]", out.Cover[0].Lo, out.Cover[len(out.Cover)-1].Hi, rs[0].Shard.Lo, rs[0].Shard.Hi)
 	}
 	out.Budget = budget
@@ -128,10 +116,8 @@ func Merge(parts []*Certificate, names ...string) (*Certificate, error) {
 }
 
 func maxBudget(a, b Budget) Budget {
-	pick := func(x, y string) string {
-		u, err1 := Dec(x, "budget")
-		v, err2 := Dec(y, "budget")
-		if err1 != nil || err2 != nil || v.Cmp(u) > 0 {
+	pick := func(x, y Decimal) Decimal {
+		if y.Cmp(x.Rat()) > 0 {
 			return y
 		}
 		return x

@@ -39,8 +39,8 @@ const MaxPrecessionLength = 1000000
 type Precession struct {
 	Problem string              `json:"problem"`
 	Basis   string              `json:"basis"`
-	Lower   string              `json:"lower"`
-	Upper   string              `json:"upper"`
+	Lower   Decimal             `json:"lower"`
+	Upper   Decimal             `json:"upper"`
 	Witness PrecessionWitness   `json:"witness"`
 	Sectors []PrecessionSector  `json:"sectors"`
 	Errors  PrecessionErrors    `json:"errors"`
@@ -48,19 +48,19 @@ type Precession struct {
 }
 
 // PrecessionWitness is a state in one residue class with integer
-// coefficients (decimal strings): Even[a] multiplies |2(3a+J0)>, Odd[b]
+// coefficients (plain decimal integers): Even[a] multiplies |2(3a+J0)>, Odd[b]
 // multiplies |2(3b+K0)+1>. Rayleigh encloses <psi|Q3|psi>/<psi|psi>.
 type PrecessionWitness struct {
 	Residue  int               `json:"residue"`
-	Even     []string          `json:"even"`
-	Odd      []string          `json:"odd"`
+	Even     []Decimal         `json:"even"`
+	Odd      []Decimal         `json:"odd"`
 	Rayleigh PrecessionBracket `json:"rayleigh"`
 }
 
 // PrecessionBracket is a closed interval of decimals.
 type PrecessionBracket struct {
-	Lower string `json:"lower"`
-	Upper string `json:"upper"`
+	Lower Decimal `json:"lower"`
+	Upper Decimal `json:"upper"`
 }
 
 // PrecessionSector records the norm lemma for one residue class: the
@@ -68,12 +68,12 @@ type PrecessionBracket struct {
 // with NormBound >= 1/2 + sqrt(lambda)/6 the resulting bound on
 // sup spec Q3 restricted to the class.
 type PrecessionSector struct {
-	Residue   int    `json:"residue"`
-	Cutoff    int    `json:"cutoff"`
-	SumLength int    `json:"sum_length"`
-	Lambda    string `json:"lambda"`
-	Epsilon   string `json:"epsilon"`
-	NormBound string `json:"norm_bound"`
+	Residue   int     `json:"residue"`
+	Cutoff    int     `json:"cutoff"`
+	SumLength int     `json:"sum_length"`
+	Lambda    Decimal `json:"lambda"`
+	Epsilon   Decimal `json:"epsilon"`
+	NormBound Decimal `json:"norm_bound"`
 }
 
 // PrecessionErrors are the certifier's error terms (upper bounds,
@@ -82,9 +82,9 @@ type PrecessionSector struct {
 // the largest rounding bound of an entry of the witness's matrix-vector
 // product.
 type PrecessionErrors struct {
-	TailH       string `json:"tail_h"`
-	Margin      string `json:"margin"`
-	MatVecError string `json:"matvec_error"`
+	TailH       Decimal `json:"tail_h"`
+	Margin      Decimal `json:"margin"`
+	MatVecError Decimal `json:"matvec_error"`
 }
 
 // PrecessionCertifier is the certifier's account of its work
@@ -100,15 +100,13 @@ func (p *Precession) validate() error {
 	if p.Basis != PrecessionBasis {
 		return errors.New("precession: basis differs from the one this schema knows")
 	}
-	lo, err := Dec(p.Lower, "lower")
-	if err != nil {
+	var fs fields
+	fs.add("lower", p.Lower)
+	fs.add("upper", p.Upper)
+	if err := fs.check(); err != nil {
 		return err
 	}
-	up, err := Dec(p.Upper, "upper")
-	if err != nil {
-		return err
-	}
-	if lo.Cmp(up) > 0 {
+	if p.Lower.Cmp(p.Upper.Rat()) > 0 {
 		return errors.New("precession: lower above upper")
 	}
 	w := p.Witness
@@ -119,23 +117,20 @@ func (p *Precession) validate() error {
 		return fmt.Errorf("precession: witness lengths %d, %d outside 1..%d", len(w.Even), len(w.Odd), MaxPrecessionWitness)
 	}
 	lim := new(big.Int).Lsh(big.NewInt(1), 53)
-	for i, list := range [2][]string{w.Even, w.Odd} {
-		for j, s := range list {
-			v, ok := new(big.Int).SetString(s, 10)
-			if !ok || v.CmpAbs(lim) > 0 || v.String() != s {
-				return fmt.Errorf("precession: witness coefficient %d of part %d (%.30q) is not an integer of at most 2^53 in plain form", j, i, s)
+	for i, list := range [2][]Decimal{w.Even, w.Odd} {
+		for j, d := range list {
+			v := d.Rat()
+			if v == nil || !v.IsInt() || v.Num().CmpAbs(lim) > 0 || v.Num().String() != d.text {
+				return fmt.Errorf("precession: witness coefficient %d of part %d (%.30q) is not an integer of at most 2^53 in plain form", j, i, d.text)
 			}
 		}
 	}
-	rl, err := Dec(w.Rayleigh.Lower, "witness rayleigh lower")
-	if err != nil {
+	fs.add("witness rayleigh lower", w.Rayleigh.Lower)
+	fs.add("witness rayleigh upper", w.Rayleigh.Upper)
+	if err := fs.check(); err != nil {
 		return err
 	}
-	ru, err := Dec(w.Rayleigh.Upper, "witness rayleigh upper")
-	if err != nil {
-		return err
-	}
-	if rl.Cmp(ru) > 0 || lo.Cmp(rl) > 0 {
+	if w.Rayleigh.Lower.Cmp(w.Rayleigh.Upper.Rat()) > 0 || p.Lower.Cmp(w.Rayleigh.Lower.Rat()) > 0 {
 		return errors.New("precession: lower is not at most the witness's Rayleigh enclosure")
 	}
 	if len(p.Sectors) != 3 {
@@ -148,20 +143,18 @@ func (p *Precession) validate() error {
 		if s.Cutoff < 1 || s.SumLength < s.Cutoff+3 || s.SumLength > MaxPrecessionLength {
 			return fmt.Errorf("precession: sector %d: cutoff %d and sum length %d out of range", i, s.Cutoff, s.SumLength)
 		}
-		for _, f := range [][2]string{{s.Lambda, "lambda"}, {s.Epsilon, "epsilon"}, {s.NormBound, "norm_bound"}} {
-			if _, err := Dec(f[0], fmt.Sprintf("sector %d %s", i, f[1])); err != nil {
-				return err
-			}
+		fs.add(fmt.Sprintf("sector %d lambda", i), s.Lambda)
+		fs.add(fmt.Sprintf("sector %d epsilon", i), s.Epsilon)
+		fs.add(fmt.Sprintf("sector %d norm_bound", i), s.NormBound)
+		if err := fs.check(); err != nil {
+			return err
 		}
-		nb, _ := Dec(s.NormBound, "")
-		if nb.Cmp(up) > 0 {
+		if s.NormBound.Cmp(p.Upper.Rat()) > 0 {
 			return fmt.Errorf("precession: upper is below the bound of sector %d", i)
 		}
 	}
-	for _, f := range [][2]string{{p.Errors.TailH, "tail_h"}, {p.Errors.Margin, "margin"}, {p.Errors.MatVecError, "matvec_error"}} {
-		if _, err := Dec(f[0], f[1]); err != nil {
-			return err
-		}
-	}
-	return nil
+	fs.add("tail_h", p.Errors.TailH)
+	fs.add("margin", p.Errors.Margin)
+	fs.add("matvec_error", p.Errors.MatVecError)
+	return fs.check()
 }

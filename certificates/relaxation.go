@@ -43,36 +43,36 @@ type Relaxation struct {
 // Shard identifies part Index (0-based) of Count of a sharded cover of
 // [Lo, Hi].
 type Shard struct {
-	Index int    `json:"index"`
-	Count int    `json:"count"`
-	Lo    string `json:"lo"`
-	Hi    string `json:"hi"`
+	Index int     `json:"index"`
+	Count int     `json:"count"`
+	Lo    Decimal `json:"lo"`
+	Hi    Decimal `json:"hi"`
 }
 
 // Problem is a wedge (vertex and two rays) inside {normal . z > offset}.
 // Entries are exact decimals or fractions p/q.
 type Problem struct {
-	Vertex    [2]string    `json:"vertex"`
-	Rays      [2][2]string `json:"rays"`
-	Halfplane Halfplane    `json:"halfplane"`
-	Edge      string       `json:"edge"`
+	Vertex    [2]Fraction    `json:"vertex"`
+	Rays      [2][2]Fraction `json:"rays"`
+	Halfplane Halfplane      `json:"halfplane"`
+	Edge      string         `json:"edge"`
 }
 
 // Halfplane is {normal . z > offset}.
 type Halfplane struct {
-	Normal [2]string `json:"normal"`
-	Offset string    `json:"offset"`
+	Normal [2]Fraction `json:"normal"`
+	Offset Fraction    `json:"offset"`
 }
 
 // NormalForm is the exact normalisation: Map is the row-major 2x2 matrix
 // (determinant 1), A, B, D describe the image half-plane {A x + B p > -D},
 // Threshold = D^2/(4AB) is where admissible quadrant-III profiles may start.
 type NormalForm struct {
-	Map       [4]string `json:"map"`
-	A         string    `json:"a"`
-	B         string    `json:"b"`
-	D         string    `json:"d"`
-	Threshold string    `json:"threshold"`
+	Map       [4]Fraction    `json:"map"`
+	A         Fraction       `json:"a"`
+	B         Fraction       `json:"b"`
+	D         Fraction       `json:"d"`
+	Threshold ThresholdValue `json:"threshold"`
 }
 
 // NoThreshold is the threshold recorded when no quadrant-III profile is
@@ -83,66 +83,209 @@ const NoThreshold = "none"
 // Kind names the family (for example "exp" for h = e^{-k xp}); Params holds
 // its exact parameters by name; Weight is the exact real weight.
 type Term struct {
-	Kind   string            `json:"kind"`
-	Params map[string]string `json:"params"`
-	Weight string            `json:"weight"`
+	Kind   string             `json:"kind"`
+	Params map[string]Decimal `json:"params"`
+	Weight Decimal            `json:"weight"`
+}
+
+// ParamText returns the parameters as their recorded text.
+func (t Term) ParamText() map[string]string {
+	out := make(map[string]string, len(t.Params))
+	for k, v := range t.Params {
+		out[k] = v.String()
+	}
+	return out
 }
 
 // Claim states the proved bound. For edge "lower": lambda_min(M(s)) >= -Bound
 // for every real s, hence -inf spec P Op(chi_W) P <= Bound. For edge
 // "upper": lambda_max(M(s)) <= Bound, hence sup spec P Op(chi_W) P <= Bound.
 type Claim struct {
-	Edge      string `json:"edge"`
-	Bound     string `json:"bound"`
-	Statement string `json:"statement"`
+	Edge      string  `json:"edge"`
+	Bound     Decimal `json:"bound"`
+	Statement string  `json:"statement"`
 }
 
 // Cell is one piece of the s-cover: for every s in [Lo, Hi] the relevant
 // eigenvalue (lambda_min for edge lower, lambda_max for edge upper) lies in
 // [EigLower, EigUpper].
 type Cell struct {
-	Lo       string `json:"lo"`
-	Hi       string `json:"hi"`
-	EigLower string `json:"eig_lower"`
-	EigUpper string `json:"eig_upper"`
+	Lo       Decimal `json:"lo"`
+	Hi       Decimal `json:"hi"`
+	EigLower Decimal `json:"eig_lower"`
+	EigUpper Decimal `json:"eig_upper"`
 }
 
 // Tail is a tail lemma's conclusion: for every s beyond From (below it for
 // tail_below, above it for tail_above) the relevant eigenvalue is >= Bound
 // (edge lower) or <= Bound (edge upper). Lemma names the lemma used.
 type Tail struct {
-	From  string `json:"from"`
-	Bound string `json:"bound"`
-	Lemma string `json:"lemma"`
+	From  Decimal `json:"from"`
+	Bound Decimal `json:"bound"`
+	Lemma string  `json:"lemma"`
 }
 
 // Budget lists error terms by kind, as decimal upper bounds.
 type Budget struct {
-	Quadrature string `json:"quadrature"`
-	Truncation string `json:"truncation"`
-	Tails      string `json:"tails"`
-	Rounding   string `json:"rounding"`
+	Quadrature Decimal `json:"quadrature"`
+	Truncation Decimal `json:"truncation"`
+	Tails      Decimal `json:"tails"`
+	Rounding   Decimal `json:"rounding"`
+}
+
+// ThresholdValue is normal_form.threshold: a Fraction, or NoThreshold
+// when no quadrant-III profile is admissible.
+type ThresholdValue struct{ number }
+
+// NewThreshold returns the threshold u (written as FractionText writes
+// it), or NoThreshold when u is nil.
+func NewThreshold(u *big.Rat) ThresholdValue {
+	if u == nil {
+		return ThresholdValue{number{NoThreshold}}
+	}
+	return ThresholdValue{FractionOf(u).number}
+}
+
+// None reports whether the threshold is NoThreshold.
+func (t ThresholdValue) None() bool { return t.text == NoThreshold }
+
+// IsSet reports whether the threshold holds a value or NoThreshold.
+func (t ThresholdValue) IsSet() bool { return t.text != "" }
+
+// Rat returns the threshold, or nil when it is NoThreshold or unset.
+func (t ThresholdValue) Rat() *big.Rat {
+	if t.None() {
+		return nil
+	}
+	return t.number.Rat()
+}
+
+// Cmp compares the threshold with r; NoThreshold compares as 0 (check None
+// first).
+func (t ThresholdValue) Cmp(r *big.Rat) int {
+	if t.None() {
+		return new(big.Rat).Cmp(r)
+	}
+	return t.number.Cmp(r)
+}
+
+// UnmarshalText reads a Fraction or NoThreshold.
+func (t *ThresholdValue) UnmarshalText(b []byte) error {
+	if string(b) == NoThreshold {
+		*t = ThresholdValue{number{NoThreshold}}
+		return nil
+	}
+	f, err := ParseFraction(string(b))
+	if err != nil {
+		return err
+	}
+	*t = ThresholdValue{f.number}
+	return nil
+}
+
+// ThresholdFrom returns u0 = d^2/(4ab), where quadrant-III profiles may
+// start for the image half-plane {a x + b p > -d} (a, b, d >= 0): 0 when
+// d = 0, and ok false when a b = 0 < d (no profile is admissible). The
+// point (-t, -u/t), t > 0, lies outside the half-plane iff
+// a t + b u/t >= d; the minimum of the left side over t is 2 sqrt(a b u),
+// so the whole hyperbola xp = u is free iff 4 a b u >= d^2 (the lemma is
+// in the regions package doc).
+func ThresholdFrom(a, b, d *big.Rat) (u0 *big.Rat, ok bool) {
+	if d.Sign() == 0 {
+		return new(big.Rat), true
+	}
+	ab := new(big.Rat).Mul(a, b)
+	if ab.Sign() == 0 {
+		return nil, false
+	}
+	u := new(big.Rat).Mul(d, d)
+	return u.Quo(u, ab.Mul(ab, big.NewRat(4, 1))), true
+}
+
+// Admissible returns ThresholdFrom of the recorded a, b and d.
+func (n NormalForm) Admissible() (u0 *big.Rat, ok bool) {
+	return ThresholdFrom(n.A.Rat(), n.B.Rat(), n.D.Rat())
+}
+
+// CheckThreshold reports, exactly, whether the recorded threshold is
+// d^2/(4ab) of the recorded a, b and d (NoThreshold when a b = 0 < d).
+func (n NormalForm) CheckThreshold() error {
+	if !n.A.IsSet() || !n.B.IsSet() || !n.D.IsSet() {
+		return errors.New("normal_form: a, b or d is missing")
+	}
+	u0, ok := n.Admissible()
+	switch {
+	case !ok && !n.Threshold.None():
+		return fmt.Errorf("the recorded threshold is %s, but a b = 0 < d leaves no admissible profile (threshold %s)", n.Threshold, NoThreshold)
+	case ok && (n.Threshold.None() || n.Threshold.Cmp(u0) != 0):
+		return fmt.Errorf("the recorded threshold %s is not d^2/(4ab) = %s", n.Threshold, FractionText(u0))
+	}
+	return nil
+}
+
+// SupportsClaim reports, exactly, whether the recorded numbers support the
+// claim: for edge lower every cell's eig_lower and both tail bounds are
+// >= -bound; for edge upper every cell's eig_upper and both tail bounds
+// are <= bound. The error names the first cell or tail that does not.
+// (The cover and the tails then prove the claim once each enclosure is
+// shown true, which is the verifier's work.)
+func (r *Relaxation) SupportsClaim() error {
+	bound := r.Claim.Bound.Rat()
+	if bound == nil {
+		return errors.New("claim.bound is missing")
+	}
+	upper := r.Claim.Edge == "upper"
+	ok := func(v Decimal) bool {
+		if !v.IsSet() {
+			return false
+		}
+		if upper {
+			return v.Rat().Cmp(bound) <= 0
+		}
+		return v.Rat().Cmp(new(big.Rat).Neg(bound)) >= 0
+	}
+	for i, c := range r.Cover {
+		end := c.EigLower
+		if upper {
+			end = c.EigUpper
+		}
+		if !ok(end) {
+			return fmt.Errorf("cover cell %d [%s, %s] records an enclosure [%s, %s] that does not support the claimed bound %s", i+1, c.Lo, c.Hi, c.EigLower, c.EigUpper, r.Claim.Bound)
+		}
+	}
+	for _, t := range []struct {
+		name string
+		t    Tail
+	}{{"tail_below", r.Below}, {"tail_above", r.Above}} {
+		if !ok(t.t.Bound) {
+			return fmt.Errorf("%s records %s, which does not support the claimed bound %s", t.name, t.t.Bound, r.Claim.Bound)
+		}
+	}
+	return nil
 }
 
 func (r *Relaxation) validate() error {
+	var fs fields
 	for i, v := range r.Problem.Vertex {
-		if _, err := Frac(v, fmt.Sprintf("problem.vertex[%d]", i)); err != nil {
-			return err
-		}
+		fs.add(fmt.Sprintf("problem.vertex[%d]", i), v)
 	}
 	for i, ray := range r.Problem.Rays {
 		for j, v := range ray {
-			if _, err := Frac(v, fmt.Sprintf("problem.rays[%d][%d]", i, j)); err != nil {
-				return err
-			}
+			fs.add(fmt.Sprintf("problem.rays[%d][%d]", i, j), v)
 		}
 	}
 	for i, v := range r.Problem.Halfplane.Normal {
-		if _, err := Frac(v, fmt.Sprintf("problem.halfplane.normal[%d]", i)); err != nil {
-			return err
-		}
+		fs.add(fmt.Sprintf("problem.halfplane.normal[%d]", i), v)
 	}
-	if _, err := Frac(r.Problem.Halfplane.Offset, "problem.halfplane.offset"); err != nil {
+	fs.add("problem.halfplane.offset", r.Problem.Halfplane.Offset)
+	for i, v := range r.Normal.Map {
+		fs.add(fmt.Sprintf("normal_form.map[%d]", i), v)
+	}
+	fs.add("normal_form.a", r.Normal.A)
+	fs.add("normal_form.b", r.Normal.B)
+	fs.add("normal_form.d", r.Normal.D)
+	fs.add("normal_form.threshold", r.Normal.Threshold)
+	if err := fs.check(); err != nil {
 		return err
 	}
 	if r.Problem.Edge != "lower" && r.Problem.Edge != "upper" {
@@ -150,21 +293,6 @@ func (r *Relaxation) validate() error {
 	}
 	if r.Claim.Edge != r.Problem.Edge {
 		return fmt.Errorf("claim.edge %q differs from problem.edge %q", r.Claim.Edge, r.Problem.Edge)
-	}
-	for i, v := range r.Normal.Map {
-		if _, err := Frac(v, fmt.Sprintf("normal_form.map[%d]", i)); err != nil {
-			return err
-		}
-	}
-	for _, f := range []struct{ v, n string }{{r.Normal.A, "normal_form.a"}, {r.Normal.B, "normal_form.b"}, {r.Normal.D, "normal_form.d"}} {
-		if _, err := Frac(f.v, f.n); err != nil {
-			return err
-		}
-	}
-	if r.Normal.Threshold != NoThreshold {
-		if _, err := Frac(r.Normal.Threshold, "normal_form.threshold"); err != nil {
-			return err
-		}
 	}
 	for i, t := range r.Terms {
 		name := fmt.Sprintf("terms[%d]", i)
@@ -180,15 +308,12 @@ func (r *Relaxation) validate() error {
 		}
 		sort.Strings(keys)
 		for _, k := range keys {
-			if _, err := Dec(t.Params[k], name+".params."+k); err != nil {
-				return err
-			}
+			fs.add(name+".params."+k, t.Params[k])
 		}
-		if _, err := Dec(t.Weight, name+".weight"); err != nil {
-			return err
-		}
+		fs.add(name+".weight", t.Weight)
 	}
-	if _, err := Dec(r.Claim.Bound, "claim.bound"); err != nil {
+	fs.add("claim.bound", r.Claim.Bound)
+	if err := fs.check(); err != nil {
 		return err
 	}
 	if r.Claim.Statement == "" {
@@ -203,33 +328,24 @@ func (r *Relaxation) validate() error {
 	var prev *big.Rat
 	for i, c := range r.Cover {
 		name := fmt.Sprintf("cover[%d]", i)
-		lo, err := Dec(c.Lo, name+".lo")
-		if err != nil {
+		fs.add(name+".lo", c.Lo)
+		fs.add(name+".hi", c.Hi)
+		fs.add(name+".eig_lower", c.EigLower)
+		fs.add(name+".eig_upper", c.EigUpper)
+		if err := fs.check(); err != nil {
 			return err
 		}
-		hi, err := Dec(c.Hi, name+".hi")
-		if err != nil {
-			return err
-		}
-		if lo.Cmp(hi) >= 0 {
+		if c.Lo.Cmp(c.Hi.Rat()) >= 0 {
 			return fmt.Errorf("%s: lo %s is not below hi %s", name, c.Lo, c.Hi)
 		}
-		if prev != nil && prev.Cmp(lo) != 0 {
-			if prev.Cmp(lo) < 0 {
-				return fmt.Errorf("%s: gap in the cover between %s and %s", name, prev.RatString(), c.Lo)
+		if prev != nil && prev.Cmp(c.Lo.Rat()) != 0 {
+			if prev.Cmp(c.Lo.Rat()) < 0 {
+				return fmt.Errorf("%s: gap in the cover between %s and %s", name, FractionText(prev), c.Lo)
 			}
 			return fmt.Errorf("%s: cell overlaps the previous one at %s", name, c.Lo)
 		}
-		prev = hi
-		el, err := Dec(c.EigLower, name+".eig_lower")
-		if err != nil {
-			return err
-		}
-		eu, err := Dec(c.EigUpper, name+".eig_upper")
-		if err != nil {
-			return err
-		}
-		if el.Cmp(eu) > 0 {
+		prev = c.Hi.Rat()
+		if c.EigLower.Cmp(c.EigUpper.Rat()) > 0 {
 			return fmt.Errorf("%s: eig_lower exceeds eig_upper", name)
 		}
 	}
@@ -237,10 +353,9 @@ func (r *Relaxation) validate() error {
 		t    Tail
 		name string
 	}{{r.Below, "tail_below"}, {r.Above, "tail_above"}} {
-		if _, err := Dec(t.t.From, t.name+".from"); err != nil {
-			return err
-		}
-		if _, err := Dec(t.t.Bound, t.name+".bound"); err != nil {
+		fs.add(t.name+".from", t.t.From)
+		fs.add(t.name+".bound", t.t.Bound)
+		if err := fs.check(); err != nil {
 			return err
 		}
 		if t.t.Lemma == "" {
@@ -253,69 +368,34 @@ func (r *Relaxation) validate() error {
 		if sh.Count < 1 || sh.Index < 0 || sh.Index >= sh.Count {
 			return fmt.Errorf("shard %d of %d is out of range", sh.Index, sh.Count)
 		}
-		lo, err := Dec(sh.Lo, "shard.lo")
-		if err != nil {
+		fs.add("shard.lo", sh.Lo)
+		fs.add("shard.hi", sh.Hi)
+		if err := fs.check(); err != nil {
 			return err
 		}
-		hi, err := Dec(sh.Hi, "shard.hi")
-		if err != nil {
-			return err
-		}
-		a, err := Dec(first, "cover[0].lo")
-		if err != nil {
-			return err
-		}
-		b, err := Dec(last, "cover[last].hi")
-		if err != nil {
-			return err
-		}
-		if a.Cmp(lo) < 0 || b.Cmp(hi) > 0 {
+		if first.Cmp(sh.Lo.Rat()) < 0 || last.Cmp(sh.Hi.Rat()) > 0 {
 			return fmt.Errorf("shard cover [%s, %s] leaves the full range [%s, %s]", first, last, sh.Lo, sh.Hi)
 		}
 		first, last = sh.Lo, sh.Hi
 	}
-	if r.Below.From != first {
+	// The tails start where the cover ends, written the same way.
+	if r.Below.From.text != first.text {
 		return fmt.Errorf("tail_below starts at %s but the cover starts at %s", r.Below.From, first)
 	}
-	if r.Above.From != last {
+	if r.Above.From.text != last.text {
 		return fmt.Errorf("tail_above starts at %s but the cover ends at %s", r.Above.From, last)
 	}
-	for _, f := range []struct{ v, n string }{{r.Budget.Quadrature, "error_budget.quadrature"}, {r.Budget.Truncation, "error_budget.truncation"}, {r.Budget.Tails, "error_budget.tails"}, {r.Budget.Rounding, "error_budget.rounding"}} {
-		v, err := Dec(f.v, f.n)
-		if err != nil {
+	for _, f := range []struct {
+		v Decimal
+		n string
+	}{{r.Budget.Quadrature, "error_budget.quadrature"}, {r.Budget.Truncation, "error_budget.truncation"}, {r.Budget.Tails, "error_budget.tails"}, {r.Budget.Rounding, "error_budget.rounding"}} {
+		fs.add(f.n, f.v)
+		if err := fs.check(); err != nil {
 			return err
 		}
-		if v.Sign() < 0 {
+		if f.v.Sign() < 0 {
 			return fmt.Errorf("%s is negative", f.n)
 		}
 	}
 	return nil
-}
-
-// Frac parses an exact decimal or a fraction "p/q" with q != 0.
-func Frac(s, name string) (*big.Rat, error) {
-	if p, q, ok := cutSlash(s); ok {
-		a, err := Dec(p, name)
-		if err != nil {
-			return nil, err
-		}
-		b, err := Dec(q, name)
-		if err != nil {
-			return nil, err
-		}
-		if b.Sign() == 0 {
-			return nil, fmt.Errorf("%s: division by zero in %q", name, s)
-		}
-		return a.Quo(a, b), nil
-	}
-	return Dec(s, name)
-}
-
-func cutSlash(s string) (string, string, bool) {
-	for i := 0; i < len(s); i++ {
-		if s[i] == '/' {
-			return s[:i], s[i+1:], true
-		}
-	}
-	return "", "", false
 }

@@ -3,7 +3,6 @@ package certificates
 import (
 	"errors"
 	"fmt"
-	"math/big"
 	"strings"
 )
 
@@ -42,7 +41,7 @@ type Strip struct {
 	Alpha StripAlpha `json:"alpha"`
 	// AlphaUsed is the float64 value of alpha the kernel was evaluated at,
 	// written exactly.
-	AlphaUsed string `json:"alpha_used"`
+	AlphaUsed Decimal `json:"alpha_used"`
 	// Basis must equal StripBasis; BasisSize is N.
 	Basis     string `json:"basis"`
 	BasisSize int    `json:"basis_size"`
@@ -55,8 +54,8 @@ type Strip struct {
 	DeficitWitness   StripWitness `json:"deficit_witness"`
 	// GalerkinLowest and GalerkinHighest claim
 	// GalerkinLowest <= lambda_min(G) and lambda_max(G) <= GalerkinHighest.
-	GalerkinLowest  string `json:"galerkin_lowest"`
-	GalerkinHighest string `json:"galerkin_highest"`
+	GalerkinLowest  Decimal `json:"galerkin_lowest"`
+	GalerkinHighest Decimal `json:"galerkin_highest"`
 	// Errors are the two error terms the brackets use.
 	Errors StripErrors `json:"errors"`
 	// Statement says in words what is proved.
@@ -71,9 +70,9 @@ type Strip struct {
 // from physical units, hbar = h/(2 pi) with the exact SI h). Lower and Upper
 // are decimals enclosing it. Units, when present, are the physical input.
 type StripAlpha struct {
-	Value string      `json:"value"`
-	Lower string      `json:"lower"`
-	Upper string      `json:"upper"`
+	Value AlphaValue  `json:"value"`
+	Lower Decimal     `json:"lower"`
+	Upper Decimal     `json:"upper"`
 	Units *StripUnits `json:"units,omitempty"`
 }
 
@@ -89,15 +88,15 @@ type StripUnits struct {
 
 // StripBracket is the closed interval [Lower, Upper] of decimals.
 type StripBracket struct {
-	Lower string `json:"lower"`
-	Upper string `json:"upper"`
+	Lower Decimal `json:"lower"`
+	Upper Decimal `json:"upper"`
 }
 
 // StripWitness is a state given by its BasisSize Legendre coefficients
-// (exact decimals) and a recorded enclosure of its Rayleigh quotient
+// (exact decimals, written with exponents) and a recorded enclosure of its Rayleigh quotient
 // <psi, k psi>/<psi, psi> at AlphaUsed.
 type StripWitness struct {
-	Coefficients []string     `json:"coefficients"`
+	Coefficients []SciDecimal `json:"coefficients"`
 	Rayleigh     StripBracket `json:"rayleigh"`
 }
 
@@ -107,10 +106,10 @@ type StripWitness struct {
 // DiscardedEtaY are the Bernstein parameters (log rho > 0) of the ellipses
 // the certifier bounded the discarded part on.
 type StripErrors struct {
-	AlphaRounding string `json:"alpha_rounding"`
-	DiscardedPart string `json:"discarded_part"`
-	DiscardedEtaX string `json:"discarded_eta_x"`
-	DiscardedEtaY string `json:"discarded_eta_y"`
+	AlphaRounding Decimal `json:"alpha_rounding"`
+	DiscardedPart Decimal `json:"discarded_part"`
+	DiscardedEtaX Decimal `json:"discarded_eta_x"`
+	DiscardedEtaY Decimal `json:"discarded_eta_y"`
 }
 
 // StripCertifier is the certifier's own account (informational): its
@@ -118,69 +117,57 @@ type StripErrors struct {
 // shifts and residuals of its semidefiniteness proofs, its entry error
 // terms and the width it aimed at. All error terms are upper bounds.
 type StripCertifier struct {
-	Method                     string `json:"method"`
-	WidthTarget                string `json:"width_target"`
-	QuadratureNodes            int    `json:"quadrature_nodes"`
-	QuadratureEta              string `json:"quadrature_eta"`
-	LowestEstimate             string `json:"lowest_estimate"`
-	HighestEstimate            string `json:"highest_estimate"`
-	EntryRounding              string `json:"entry_rounding"`
-	EntryQuadrature            string `json:"entry_quadrature"`
-	LowestShift                string `json:"lowest_shift"`
-	LowestResidual             string `json:"lowest_cholesky_residual"`
-	HighestShift               string `json:"highest_shift"`
-	HighestResidual            string `json:"highest_cholesky_residual"`
-	AdvantageWitnessQuadrature string `json:"advantage_witness_quadrature"`
-	DeficitWitnessQuadrature   string `json:"deficit_witness_quadrature"`
+	Method                     string     `json:"method"`
+	WidthTarget                SciDecimal `json:"width_target"`
+	QuadratureNodes            int        `json:"quadrature_nodes"`
+	QuadratureEta              Decimal    `json:"quadrature_eta"`
+	LowestEstimate             Decimal    `json:"lowest_estimate"`
+	HighestEstimate            Decimal    `json:"highest_estimate"`
+	EntryRounding              Decimal    `json:"entry_rounding"`
+	EntryQuadrature            Decimal    `json:"entry_quadrature"`
+	LowestShift                Decimal    `json:"lowest_shift"`
+	LowestResidual             Decimal    `json:"lowest_cholesky_residual"`
+	HighestShift               Decimal    `json:"highest_shift"`
+	HighestResidual            Decimal    `json:"highest_cholesky_residual"`
+	AdvantageWitnessQuadrature Decimal    `json:"advantage_witness_quadrature"`
+	DeficitWitnessQuadrature   Decimal    `json:"deficit_witness_quadrature"`
 }
 
-// StripTwoPiPrefix marks an alpha value that is 2 pi times a rational.
-const StripTwoPiPrefix = "2*pi*"
-
-// ParseStripAlpha reads an alpha value: it returns the rational r and
-// whether alpha = 2 pi r (otherwise alpha = r). r must be positive.
-func ParseStripAlpha(s string) (r *big.Rat, twoPi bool, err error) {
-	t := s
-	if strings.HasPrefix(t, StripTwoPiPrefix) {
-		t, twoPi = t[len(StripTwoPiPrefix):], true
+// check checks an alpha section: the value, its positive enclosure
+// [Lower, Upper] and, when units are given, that they name all three
+// quantities and the value is of the form 2*pi*r.
+func (a *StripAlpha) check(name string) error {
+	var fs fields
+	fs.add(name+".value", a.Value)
+	fs.add(name+".lower", a.Lower)
+	fs.add(name+".upper", a.Upper)
+	if err := fs.check(); err != nil {
+		return err
 	}
-	r, err = Frac(t, "strip.alpha.value")
-	if err != nil {
-		return nil, false, err
+	if a.Units != nil && !a.Value.TwoPi() {
+		return fmt.Errorf("%s: physical units are given but the value %q is not of the form 2*pi*r", name, a.Value)
 	}
-	if r.Sign() <= 0 {
-		return nil, false, fmt.Errorf("strip.alpha.value %q is not positive", s)
+	if a.Lower.Sign() <= 0 || a.Lower.Cmp(a.Upper.Rat()) > 0 {
+		return fmt.Errorf("%s: [%s, %s] is not a positive interval", name, a.Lower, a.Upper)
 	}
-	return r, twoPi, nil
+	if u := a.Units; u != nil {
+		if strings.TrimSpace(u.Mass) == "" || strings.TrimSpace(u.Length) == "" || strings.TrimSpace(u.Time) == "" {
+			return fmt.Errorf("%s.units: mass, length and time must all be given", name)
+		}
+	}
+	return nil
 }
 
 func (s *Strip) validate() error {
-	if _, twoPi, err := ParseStripAlpha(s.Alpha.Value); err != nil {
-		return err
-	} else if s.Alpha.Units != nil && !twoPi {
-		return fmt.Errorf("strip.alpha: physical units are given but the value %q is not of the form 2*pi*r", s.Alpha.Value)
-	}
-	lo, err := Dec(s.Alpha.Lower, "strip.alpha.lower")
-	if err != nil {
+	if err := s.Alpha.check("strip.alpha"); err != nil {
 		return err
 	}
-	hi, err := Dec(s.Alpha.Upper, "strip.alpha.upper")
-	if err != nil {
+	var fs fields
+	fs.add("strip.alpha_used", s.AlphaUsed)
+	if err := fs.check(); err != nil {
 		return err
 	}
-	if lo.Sign() <= 0 || lo.Cmp(hi) > 0 {
-		return fmt.Errorf("strip.alpha: [%s, %s] is not a positive interval", s.Alpha.Lower, s.Alpha.Upper)
-	}
-	if u := s.Alpha.Units; u != nil {
-		if strings.TrimSpace(u.Mass) == "" || strings.TrimSpace(u.Length) == "" || strings.TrimSpace(u.Time) == "" {
-			return errors.New("strip.alpha.units: mass, length and time must all be given")
-		}
-	}
-	au, err := Dec(s.AlphaUsed, "strip.alpha_used")
-	if err != nil {
-		return err
-	}
-	if au.Sign() <= 0 {
+	if s.AlphaUsed.Sign() <= 0 {
 		return errors.New("strip.alpha_used must be positive")
 	}
 	if s.Basis != StripBasis {
@@ -207,28 +194,28 @@ func (s *Strip) validate() error {
 		}
 		nonzero := false
 		for i, c := range w.w.Coefficients {
-			v, err := Dec(c, fmt.Sprintf("%s.coefficients[%d]", w.name, i))
-			if err != nil {
-				return err
-			}
-			nonzero = nonzero || v.Sign() != 0
+			fs.add(fmt.Sprintf("%s.coefficients[%d]", w.name, i), c)
+			nonzero = nonzero || c.Sign() != 0
+		}
+		if err := fs.check(); err != nil {
+			return err
 		}
 		if !nonzero {
 			return fmt.Errorf("%s: the zero vector is not a state", w.name)
 		}
 	}
-	gl, err := Dec(s.GalerkinLowest, "strip.galerkin_lowest")
-	if err != nil {
+	fs.add("strip.galerkin_lowest", s.GalerkinLowest)
+	fs.add("strip.galerkin_highest", s.GalerkinHighest)
+	if err := fs.check(); err != nil {
 		return err
 	}
-	gh, err := Dec(s.GalerkinHighest, "strip.galerkin_highest")
-	if err != nil {
-		return err
-	}
-	if gl.Cmp(gh) > 0 {
+	if s.GalerkinLowest.Cmp(s.GalerkinHighest.Rat()) > 0 {
 		return errors.New("strip: galerkin_lowest exceeds galerkin_highest")
 	}
-	for _, f := range []struct{ v, n string }{
+	for _, f := range []struct {
+		v Decimal
+		n string
+	}{
 		{s.Errors.AlphaRounding, "strip.errors.alpha_rounding"}, {s.Errors.DiscardedPart, "strip.errors.discarded_part"},
 		{s.Certifier.EntryRounding, "strip.certifier.entry_rounding"}, {s.Certifier.EntryQuadrature, "strip.certifier.entry_quadrature"},
 		{s.Certifier.LowestShift, "strip.certifier.lowest_shift"}, {s.Certifier.LowestResidual, "strip.certifier.lowest_cholesky_residual"},
@@ -236,32 +223,36 @@ func (s *Strip) validate() error {
 		{s.Certifier.AdvantageWitnessQuadrature, "strip.certifier.advantage_witness_quadrature"},
 		{s.Certifier.DeficitWitnessQuadrature, "strip.certifier.deficit_witness_quadrature"},
 	} {
-		v, err := Dec(f.v, f.n)
-		if err != nil {
+		fs.add(f.n, f.v)
+		if err := fs.check(); err != nil {
 			return err
 		}
-		if v.Sign() < 0 {
+		if f.v.Sign() < 0 {
 			return fmt.Errorf("%s is negative", f.n)
 		}
 	}
-	for _, f := range []struct{ v, n string }{
+	for _, f := range []struct {
+		v interface {
+			IsSet() bool
+			Sign() int
+		}
+		n string
+	}{
 		{s.Errors.DiscardedEtaX, "strip.errors.discarded_eta_x"}, {s.Errors.DiscardedEtaY, "strip.errors.discarded_eta_y"},
 		{s.Certifier.QuadratureEta, "strip.certifier.quadrature_eta"}, {s.Certifier.WidthTarget, "strip.certifier.width_target"},
 	} {
-		v, err := Dec(f.v, f.n)
-		if err != nil {
+		fs.add(f.n, f.v)
+		if err := fs.check(); err != nil {
 			return err
 		}
-		if v.Sign() <= 0 {
+		if f.v.Sign() <= 0 {
 			return fmt.Errorf("%s must be positive", f.n)
 		}
 	}
-	for _, f := range []struct{ v, n string }{
-		{s.Certifier.LowestEstimate, "strip.certifier.lowest_estimate"}, {s.Certifier.HighestEstimate, "strip.certifier.highest_estimate"},
-	} {
-		if _, err := Dec(f.v, f.n); err != nil {
-			return err
-		}
+	fs.add("strip.certifier.lowest_estimate", s.Certifier.LowestEstimate)
+	fs.add("strip.certifier.highest_estimate", s.Certifier.HighestEstimate)
+	if err := fs.check(); err != nil {
+		return err
 	}
 	if s.Certifier.QuadratureNodes < 0 {
 		return errors.New("strip.certifier.quadrature_nodes is negative")
@@ -270,15 +261,13 @@ func (s *Strip) validate() error {
 }
 
 func (b StripBracket) validate(name string) error {
-	lo, err := Dec(b.Lower, name+".lower")
-	if err != nil {
+	var fs fields
+	fs.add(name+".lower", b.Lower)
+	fs.add(name+".upper", b.Upper)
+	if err := fs.check(); err != nil {
 		return err
 	}
-	hi, err := Dec(b.Upper, name+".upper")
-	if err != nil {
-		return err
-	}
-	if lo.Cmp(hi) > 0 {
+	if b.Lower.Cmp(b.Upper.Rat()) > 0 {
 		return fmt.Errorf("%s: lower %s exceeds upper %s", name, b.Lower, b.Upper)
 	}
 	return nil

@@ -31,14 +31,14 @@ type Witness struct {
 	// Basis lists the basis functions; Coefficients (exact decimals) the
 	// state phi = sum_j Coefficients[j] Basis[j].
 	Basis        []WitnessFunc `json:"basis"`
-	Coefficients []string      `json:"coefficients"`
+	Coefficients []Decimal     `json:"coefficients"`
 	// Norm encloses <phi, phi>, Backflow encloses <phi, K phi> and Quotient
 	// their ratio.
 	Norm     Interval `json:"norm"`
 	Backflow Interval `json:"backflow"`
 	Quotient Interval `json:"quotient"`
 	// Bound is the claim: c_bm >= Bound.
-	Bound string `json:"bound"`
+	Bound Decimal `json:"bound"`
 	// Errors are the error terms included in Backflow.
 	Errors WitnessErrors `json:"errors"`
 	// Statement says in words what is proved.
@@ -50,45 +50,43 @@ type Witness struct {
 
 // Interval is a closed interval [Lower, Upper] of decimals.
 type Interval struct {
-	Lower string `json:"lower"`
-	Upper string `json:"upper"`
+	Lower Decimal `json:"lower"`
+	Upper Decimal `json:"upper"`
 }
 
 // WitnessFunc is u^Power exp(-Width u^2) times 1 (Chirp "plain"),
 // cos(u^2) ("cos") or sin(u^2) ("sin"); Width is a positive decimal.
 type WitnessFunc struct {
-	Chirp string `json:"chirp"`
-	Power int    `json:"power"`
-	Width string `json:"width"`
+	Chirp string  `json:"chirp"`
+	Power int     `json:"power"`
+	Width Decimal `json:"width"`
 }
 
 // WitnessErrors: Quadrature is the sum of the quadrature remainder bounds of
 // the time integral (the only approximation; the norm is a closed form).
 type WitnessErrors struct {
-	Quadrature string `json:"quadrature"`
+	Quadrature Decimal `json:"quadrature"`
 }
 
 // WitnessCertifier is informational: the number of time panels and
 // quadrature nodes used, the float estimate of the search and the Gram
 // cut-off it used.
 type WitnessCertifier struct {
-	Panels   int    `json:"panels"`
-	Nodes    int    `json:"nodes"`
-	Estimate string `json:"estimate"`
-	GramTol  string `json:"gram_cutoff"`
-	Method   string `json:"method"`
+	Panels   int     `json:"panels"`
+	Nodes    int     `json:"nodes"`
+	Estimate Decimal `json:"estimate"`
+	GramTol  Decimal `json:"gram_cutoff"`
+	Method   string  `json:"method"`
 }
 
 func (iv Interval) validate(name string) error {
-	lo, err := Dec(iv.Lower, name+".lower")
-	if err != nil {
+	var fs fields
+	fs.add(name+".lower", iv.Lower)
+	fs.add(name+".upper", iv.Upper)
+	if err := fs.check(); err != nil {
 		return err
 	}
-	hi, err := Dec(iv.Upper, name+".upper")
-	if err != nil {
-		return err
-	}
-	if lo.Cmp(hi) > 0 {
+	if iv.Lower.Cmp(iv.Upper.Rat()) > 0 {
 		return fmt.Errorf("%s: lower %s exceeds upper %s", name, iv.Lower, iv.Upper)
 	}
 	return nil
@@ -108,6 +106,7 @@ func (w *Witness) validate() error {
 	if len(w.Coefficients) != n {
 		return fmt.Errorf("witness: %d coefficients for %d basis functions", len(w.Coefficients), n)
 	}
+	var fs fields
 	nonzero := false
 	for i, f := range w.Basis {
 		if f.Chirp != "plain" && f.Chirp != "cos" && f.Chirp != "sin" {
@@ -116,18 +115,15 @@ func (w *Witness) validate() error {
 		if f.Power < 0 || f.Power > 8 {
 			return fmt.Errorf("witness.basis[%d].power %d is outside 0..8", i, f.Power)
 		}
-		b, err := Dec(f.Width, fmt.Sprintf("witness.basis[%d].width", i))
-		if err != nil {
+		fs.add(fmt.Sprintf("witness.basis[%d].width", i), f.Width)
+		fs.add(fmt.Sprintf("witness.coefficients[%d]", i), w.Coefficients[i])
+		if err := fs.check(); err != nil {
 			return err
 		}
-		if b.Sign() <= 0 || b.Cmp(big.NewRat(1000000, 1)) > 0 {
+		if f.Width.Sign() <= 0 || f.Width.Cmp(big.NewRat(1000000, 1)) > 0 {
 			return fmt.Errorf("witness.basis[%d].width %s is outside (0, 1e6]", i, f.Width)
 		}
-		c, err := Dec(w.Coefficients[i], fmt.Sprintf("witness.coefficients[%d]", i))
-		if err != nil {
-			return err
-		}
-		nonzero = nonzero || c.Sign() != 0
+		nonzero = nonzero || w.Coefficients[i].Sign() != 0
 	}
 	if !nonzero {
 		return errors.New("witness: the zero vector is not a state")
@@ -140,26 +136,18 @@ func (w *Witness) validate() error {
 			return err
 		}
 	}
-	bd, err := Dec(w.Bound, "witness.bound")
-	if err != nil {
+	fs.add("witness.bound", w.Bound)
+	fs.add("witness.errors.quadrature", w.Errors.Quadrature)
+	fs.add("witness.certifier.estimate", w.Certifier.Estimate)
+	fs.add("witness.certifier.gram_cutoff", w.Certifier.GramTol)
+	if err := fs.check(); err != nil {
 		return err
 	}
-	ql, _ := Dec(w.Quotient.Lower, "witness.quotient.lower")
-	if bd.Cmp(ql) > 0 {
+	if w.Bound.Cmp(w.Quotient.Lower.Rat()) > 0 {
 		return fmt.Errorf("witness.bound %s exceeds the recorded quotient's lower end %s", w.Bound, w.Quotient.Lower)
 	}
-	q, err := Dec(w.Errors.Quadrature, "witness.errors.quadrature")
-	if err != nil {
-		return err
-	}
-	if q.Sign() < 0 {
+	if w.Errors.Quadrature.Sign() < 0 {
 		return errors.New("witness.errors.quadrature is negative")
-	}
-	if _, err := Dec(w.Certifier.Estimate, "witness.certifier.estimate"); err != nil {
-		return err
-	}
-	if _, err := Dec(w.Certifier.GramTol, "witness.certifier.gram_cutoff"); err != nil {
-		return err
 	}
 	if w.Certifier.Panels < 0 || w.Certifier.Nodes < 0 {
 		return errors.New("witness.certifier: negative counts")

@@ -8,6 +8,8 @@ import (
 	"math/big"
 	"sort"
 	"strings"
+
+	"wedgebound/certificates"
 )
 
 // Edge names which end of the spectrum a problem asks for.
@@ -58,35 +60,19 @@ func (n Number) String() string { return RatString(n.Rat()) }
 // DecimalPlaces returns the number of decimal places of r when r is a
 // terminating decimal (its denominator is 2^i 5^j), and ok false otherwise.
 func DecimalPlaces(r *big.Rat) (places int, ok bool) {
-	d := new(big.Int).Set(r.Denom())
-	twos, fives := 0, 0
-	for d.Bit(0) == 0 {
-		d.Rsh(d, 1)
-		twos++
-	}
-	five := big.NewInt(5)
-	q, m := new(big.Int), new(big.Int)
-	for {
-		q.QuoRem(d, five, m)
-		if m.Sign() != 0 {
-			break
-		}
-		d.Set(q)
-		fives++
-	}
-	if d.Cmp(big.NewInt(1)) != 0 {
+	t, ok := certificates.DecimalText(r)
+	if !ok {
 		return 0, false
 	}
-	return max(twos, fives), true
+	if i := strings.IndexByte(t, '.'); i >= 0 {
+		return len(t) - i - 1, true
+	}
+	return 0, true
 }
 
-// RatString writes r as an exact finite decimal when possible, else "p/q".
-func RatString(r *big.Rat) string {
-	if places, ok := DecimalPlaces(r); ok {
-		return r.FloatString(places)
-	}
-	return r.String()
-}
+// RatString writes r as an exact finite decimal when possible, else "p/q"
+// (the certificates' printer, certificates.FractionText).
+func RatString(r *big.Rat) string { return certificates.FractionText(r) }
 
 // MarshalJSON writes the number as a JSON number when it is a finite
 // decimal, otherwise as a string "p/q".
@@ -236,17 +222,10 @@ func (n Normal) Threshold() (u0 *big.Rat, ok bool) {
 
 // Threshold returns d^2/(4ab) for the image half-plane {a x + b p > -d}
 // (0 when d = 0); ok is false when a b = 0 < d (see Normal.Threshold).
+// The computation is the schema's (certificates.ThresholdFrom), so that
+// the certifier, the report and the schema's own checks share it.
 func Threshold(a, b, d *big.Rat) (u0 *big.Rat, ok bool) {
-	if d.Sign() == 0 {
-		return new(big.Rat), true
-	}
-	ab := new(big.Rat).Mul(a, b)
-	if ab.Sign() == 0 {
-		return nil, false
-	}
-	u := new(big.Rat).Mul(d, d)
-	u.Quo(u, ab.Mul(ab, big.NewRat(4, 1)))
-	return u, true
+	return certificates.ThresholdFrom(a, b, d)
 }
 
 // Presets are named problems shipped with the tool.

@@ -67,10 +67,11 @@ func TermKinds() []string {
 // with threshold (u0, ok) (Normal.Threshold or Threshold): ok must hold and
 // start >= u0. The error names the family and both numbers.
 func Admissible(kind, start string, u0 *big.Rat, ok bool) error {
-	st, err := certificates.Frac(start, "start of the "+kind+" profile")
+	f, err := certificates.ParseFraction(start)
 	if err != nil {
-		return err
+		return fmt.Errorf("start of the %s profile: %v", kind, err)
 	}
+	st := f.Rat()
 	if !ok {
 		return fmt.Errorf("the %s profile is not admissible: this geometry (d > 0, a b = 0) leaves no xp >= d^2/(4ab) of quadrant III free, so no profile vanishes on the image half-plane; certify the bare quadrant (no terms) instead", kind)
 	}

@@ -33,6 +33,13 @@ type Options struct {
 	NoHighPrecision bool
 }
 
+// Bracket is a closed interval [Lower, Upper] the verifier reports, as
+// decimals rounded outward ("-inf" or "inf" for an unbounded end).
+type Bracket struct {
+	Lower string `json:"lower"`
+	Upper string `json:"upper"`
+}
+
 // Failure is one claim that does not hold.
 type Failure struct {
 	// Where names the part of the certificate concerned, as a path into the
@@ -149,6 +156,15 @@ func Verify(c *certificates.Certificate, opt Options) (*Result, error) {
 	ch := lookup(c.Kind)
 	if ch == nil {
 		return nil, fmt.Errorf("certificate kind %q is %w (it checks %s)", c.Kind, ErrUnsupported, quoted(Kinds()))
+	}
+	// The schema's strict reading, in case c did not come from Decode: the
+	// checkers then find every number present and read.
+	if err := certificates.CheckStrict(c); err != nil {
+		res := &Result{Kind: c.Kind, Failures: []Failure{{Where: "structure", Message: err.Error()}}, Elapsed: time.Since(start)}
+		if nd, ok := ch.(interface{ NewDetail() any }); ok {
+			res.Detail = nd.NewDetail()
+		}
+		return res, nil
 	}
 	res, err := ch.Check(c, opt)
 	if err != nil {

@@ -46,14 +46,18 @@ func (r *Result) Certificate() (*certificates.Certificate, error) {
 	for i, s := range r.Plan.Stages {
 		stages[i] = certificates.FlightStage{Mass: s.Mass, Duration: s.Duration, Kick: s.Kick}
 	}
+	alpha, err := certificates.AlphaOf(red.AlphaRat, red.AlphaTwoPi)
+	if err != nil {
+		return nil, err
+	}
 	f := &certificates.Flight{
 		Input: certificates.FlightInput{Length: r.Plan.Length, Target: r.Plan.Target, Stages: stages},
 		Reduction: certificates.FlightReduction{
-			TimeOverMass:  RatText(red.TimeOverMass),
-			Alpha:         red.AlphaText(),
-			Shift:         RatText(red.Shift),
-			Target:        RatText(red.Target),
-			ShiftedTarget: RatText(red.ShiftedTarget),
+			TimeOverMass:  certificates.FractionOf(red.TimeOverMass),
+			Alpha:         alpha,
+			Shift:         certificates.FractionOf(red.Shift),
+			Target:        certificates.FractionOf(red.Target),
+			ShiftedTarget: certificates.FractionOf(red.ShiftedTarget),
 		},
 		Strip: st,
 	}

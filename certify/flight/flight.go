@@ -6,9 +6,9 @@ import (
 	"errors"
 	"fmt"
 	"math/big"
-	"regexp"
 	"strings"
 
+	"wedgebound/certificates"
 	"wedgebound/certify/strip"
 )
 
@@ -33,62 +33,21 @@ type Plan struct {
 // MaxStages caps the number of stages.
 const MaxStages = 1000
 
-// Physical constants (exact SI h; CODATA 2018 atomic mass unit).
-const (
-	planckH        = "6.62607015e-34"
-	atomicMassUnit = "1.66053906660e-27"
-)
-
-var (
-	massUnits   = map[string]string{"kg": "1", "g": "1e-3", "mg": "1e-6", "u": atomicMassUnit}
-	lengthUnits = map[string]string{"m": "1", "mm": "1e-3", "um": "1e-6", "µm": "1e-6", "μm": "1e-6", "nm": "1e-9"}
-	timeUnits   = map[string]string{"s": "1", "ms": "1e-3", "us": "1e-6", "µs": "1e-6", "μs": "1e-6", "ns": "1e-9"}
-	kickUnits   = map[string]string{"kg*m/s": "1", "g*m/s": "1e-3", "u*m/s": atomicMassUnit,
-		"u*mm/s": atomicMassUnit + "e-3", "u*um/s": atomicMassUnit + "e-6"}
-	qtyRE = regexp.MustCompile(`^\s*([+-]?(?:[0-9]+\.?[0-9]*|\.[0-9]+)(?:[eE][+-]?[0-9]{1,4})?)\s*([A-Za-zµμ*/]*)\s*$`)
-)
-
 // ErrInput marks bad input (the caller should exit 2).
 var ErrInput = errors.New("bad flight input")
 
-// quantity reads "number [unit]" exactly. With units nil the unit must be
-// absent (scaled input); otherwise it must be one of units (SI factor).
-func quantity(s, what string, units map[string]string, positive bool) (*big.Rat, error) {
-	m := qtyRE.FindStringSubmatch(s)
-	if m == nil {
-		return nil, fmt.Errorf("%s %q is not a number (with a unit for physical input): %w", what, s, ErrInput)
-	}
-	v, ok := new(big.Rat).SetString(m[1])
-	if !ok {
-		return nil, fmt.Errorf("%s %q is not a number: %w", what, s, ErrInput)
+// quantity reads "number [unit]" exactly by the schema's reader
+// (certificates.ParseQuantity): a unit of dimension d for physical input, no
+// unit for scaled input. what names the quantity in errors.
+func quantity(s, what string, d certificates.Dimension, physical, positive bool) (*big.Rat, error) {
+	v, err := certificates.ParseQuantity(s, d, physical)
+	if err != nil {
+		return nil, fmt.Errorf("%s: %v: %w", what, err, ErrInput)
 	}
 	if positive && v.Sign() <= 0 {
 		return nil, fmt.Errorf("%s %q must be positive: %w", what, s, ErrInput)
 	}
-	switch {
-	case units == nil && m[2] != "":
-		return nil, fmt.Errorf("%s %q has a unit, but the flight has no --length (scaled input takes plain numbers): %w", what, s, ErrInput)
-	case units == nil:
-		return v, nil
-	case m[2] == "":
-		return nil, fmt.Errorf("%s %q needs a unit (physical input, since a length is given): %w", what, s, ErrInput)
-	}
-	f, ok := units[m[2]]
-	if !ok {
-		return nil, fmt.Errorf("%s %q: unknown unit %q (known: %s): %w", what, s, m[2], unitNames(units), ErrInput)
-	}
-	fr, _ := new(big.Rat).SetString(f)
-	return v.Mul(v, fr), nil
-}
-
-func unitNames(u map[string]string) string {
-	var out []string
-	for _, k := range []string{"kg", "g", "mg", "u", "m", "mm", "um", "nm", "s", "ms", "us", "ns", "kg*m/s", "g*m/s", "u*m/s", "u*mm/s", "u*um/s"} {
-		if _, ok := u[k]; ok {
-			out = append(out, k)
-		}
-	}
-	return strings.Join(out, ", ")
+	return v, nil
 }
 
 // Reduction is the exact single-projectile form of a flight (see the
@@ -116,12 +75,11 @@ func Reduce(p Plan) (*Reduction, error) {
 		return nil, fmt.Errorf("%d stages is more than %d: %w", len(p.Stages), MaxStages, ErrInput)
 	}
 	r := &Reduction{Physical: strings.TrimSpace(p.Length) != ""}
-	mu, lu, tu, ku := massUnits, lengthUnits, timeUnits, kickUnits
+	phys := r.Physical
 	if !r.Physical {
-		mu, lu, tu, ku = nil, nil, nil, nil
 		r.Length = big.NewRat(1, 1)
 	} else {
-		l, err := quantity(p.Length, "length", lu, true)
+		l, err := quantity(p.Length, "length", certificates.Length, true, true)
 		if err != nil {
 			return nil, err
 		}
@@ -132,17 +90,17 @@ func Reduce(p Plan) (*Reduction, error) {
 	r.TimeOverMass = new(big.Rat)
 	for i, st := range p.Stages {
 		where := fmt.Sprintf("stage %d", i+1)
-		m, err := quantity(st.Mass, where+" mass", mu, true)
+		m, err := quantity(st.Mass, where+" mass", certificates.Mass, phys, true)
 		if err != nil {
 			return nil, err
 		}
-		t, err := quantity(st.Duration, where+" duration", tu, true)
+		t, err := quantity(st.Duration, where+" duration", certificates.Duration, phys, true)
 		if err != nil {
 			return nil, err
 		}
 		q := new(big.Rat)
 		if strings.TrimSpace(st.Kick) != "" {
-			if q, err = quantity(st.Kick, where+" kick", ku, false); err != nil {
+			if q, err = quantity(st.Kick, where+" kick", certificates.Momentum, phys, false); err != nil {
 				return nil, err
 			}
 		}
@@ -159,7 +117,7 @@ func Reduce(p Plan) (*Reduction, error) {
 	}
 	r.Target = new(big.Rat).Set(r.Length)
 	if strings.TrimSpace(p.Target) != "" {
-		c, err := quantity(p.Target, "target", lu, false)
+		c, err := quantity(p.Target, "target", certificates.Length, phys, false)
 		if err != nil {
 			return nil, err
 		}
@@ -169,8 +127,7 @@ func Reduce(p Plan) (*Reduction, error) {
 	l2 := new(big.Rat).Mul(r.Length, r.Length)
 	r.AlphaRat = new(big.Rat).Quo(l2, r.TimeOverMass)
 	if r.Physical {
-		h, _ := new(big.Rat).SetString(planckH)
-		r.AlphaRat.Quo(r.AlphaRat, h)
+		r.AlphaRat.Quo(r.AlphaRat, certificates.Planck())
 		r.AlphaTwoPi = true
 	}
 	return r, nil
@@ -179,12 +136,14 @@ func Reduce(p Plan) (*Reduction, error) {
 // Alpha returns the effective alpha as a strip parameter.
 func (r *Reduction) Alpha() (strip.Alpha, error) { return strip.AlphaOf(r.AlphaRat, r.AlphaTwoPi) }
 
-// AlphaText is the exact effective alpha: a rational, or 2*pi*r.
+// AlphaText is the exact effective alpha: a rational, or 2*pi*r (as
+// certificates.AlphaOf writes it).
 func (r *Reduction) AlphaText() string {
-	if r.AlphaTwoPi {
-		return "2*pi*" + RatText(r.AlphaRat)
+	a, err := certificates.AlphaOf(r.AlphaRat, r.AlphaTwoPi)
+	if err != nil {
+		return ""
 	}
-	return RatText(r.AlphaRat)
+	return a.String()
 }
 
 // ParseStage reads "mass=M,duration=T[,kick=Q]" (duration may be written
@@ -226,30 +185,4 @@ func ParsePlan(b []byte) (Plan, error) {
 		return p, fmt.Errorf("flight file: trailing data: %w", ErrInput)
 	}
 	return p, nil
-}
-
-// RatText writes r exactly: a decimal when its denominator divides a power
-// of ten, else p/q.
-func RatText(r *big.Rat) string {
-	d := new(big.Int).Set(r.Denom())
-	k := 0
-	for _, p := range []int64{2, 5} {
-		pp := big.NewInt(p)
-		j := 0
-		for new(big.Int).Mod(d, pp).Sign() == 0 {
-			d.Quo(d, pp)
-			j++
-		}
-		if j > k {
-			k = j
-		}
-	}
-	if d.Cmp(big.NewInt(1)) != 0 {
-		return r.RatString()
-	}
-	s := r.FloatString(k)
-	if strings.Contains(s, ".") {
-		s = strings.TrimRight(strings.TrimRight(s, "0"), ".")
-	}
-	return s
 }

@@ -259,7 +259,7 @@ func TestCertificate(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	if d.Flight.Reduction.Alpha != "10" || d.Flight.Reduction.Shift != "0.05" {
+	if d.Flight.Reduction.Alpha.String() != "10" || d.Flight.Reduction.Shift.String() != "0.05" {
 		t.Errorf("reduction %+v", d.Flight.Reduction)
 	}
 }

@@ -3,9 +3,7 @@ package matched
 import (
 	"fmt"
 	"math"
-	"math/big"
 	"strconv"
-	"strings"
 
 	"wedgebound/certificates"
 	"wedgebound/interval"
@@ -32,23 +30,29 @@ func (r *Result) Certificate() (*certificates.Certificate, error) {
 	if u := av.Units; u != nil {
 		units = &certificates.StripUnits{Mass: u.Mass, Length: u.Length, Time: u.Time}
 	}
+	var n certificates.Parser
+	exactFloat := func(x float64) certificates.SciDecimal {
+		d, err := certificates.SciFloat(x, certificates.SciPlainUnits)
+		n.Note(err)
+		return d
+	}
 	m := &certificates.Matched{
-		Alpha: certificates.StripAlpha{Value: av.Value, Lower: av.Lower, Upper: av.Upper, Units: units},
+		Alpha: certificates.StripAlpha{Value: n.Alpha(av.Value), Lower: n.Decimal(av.Lower), Upper: n.Decimal(av.Upper), Units: units},
 		Witness: certificates.MatchedWitness{
 			V:            exactFloat(r.Witness.V),
 			Sizes:        r.Witness.Sizes,
-			Coefficients: make([]string, len(r.Witness.Coefficients)),
+			Coefficients: make([]certificates.SciDecimal, len(r.Witness.Coefficients)),
 		},
-		Certifier: certificates.MatchedCertifier{Method: Method, WidthTarget: strconv.FormatFloat(r.WidthTarget, 'g', -1, 64),
-			Estimate: strconv.FormatFloat(r.Estimate, 'g', 12, 64)},
+		Certifier: certificates.MatchedCertifier{Method: Method, WidthTarget: n.Sci(strconv.FormatFloat(r.WidthTarget, 'g', -1, 64)),
+			Estimate: n.Sci(strconv.FormatFloat(r.Estimate, 'g', 12, 64))},
 	}
 	for i, c := range r.Witness.Coefficients {
 		m.Witness.Coefficients[i] = exactFloat(c)
 	}
-	rw := down(interval.PointF(r.Witness.Rayleigh).Sub(interval.PointF(witnessMargin)))
+	rw := n.Decimal(down(interval.PointF(r.Witness.Rayleigh).Sub(interval.PointF(witnessMargin))))
 	m.Witness.Rayleigh = rw
-	if strings.HasPrefix(rw, "-") {
-		m.Lower = "0"
+	if rw.Sign() < 0 {
+		m.Lower = n.Decimal("0")
 	} else {
 		m.Lower = rw
 	}
@@ -56,9 +60,12 @@ func (r *Result) Certificate() (*certificates.Certificate, error) {
 	for _, c := range r.Cells {
 		u := interval.PointF(c.Upper).Add(interval.PointF(cellMargin))
 		upper = math.Max(upper, u.Hi())
-		m.Cells = append(m.Cells, certificates.MatchedCell{Lo: exactFloat(c.Lo), Hi: exactFloat(c.Hi), Sizes: c.Sizes, Upper: up(u)})
+		m.Cells = append(m.Cells, certificates.MatchedCell{Lo: exactFloat(c.Lo), Hi: exactFloat(c.Hi), Sizes: c.Sizes, Upper: n.Decimal(up(u))})
 	}
-	m.Upper = up(interval.PointF(upper))
+	m.Upper = n.Decimal(up(interval.PointF(upper)))
+	if err := n.Err(); err != nil {
+		return nil, fmt.Errorf("matched: cannot certify: %v", err)
+	}
 	m.Statement = fmt.Sprintf("For alpha = %s, the matched advantage M(alpha) (quantum detection probability minus that of the best classical particle "+
 		"with the same position and momentum distributions, over states confined to the strip) lies in [%s, %s]", av.Value, m.Lower, m.Upper)
 	c := &certificates.Certificate{Kind: certificates.KindMatched, Matched: m}
@@ -78,19 +85,4 @@ func up(x interval.F) string {
 func down(x interval.F) string {
 	lo, _ := x.Endpoints()
 	return interval.DecimalDown(lo, 12)
-}
-
-// exactFloat writes the float64 x exactly as a decimal.
-func exactFloat(x float64) string {
-	if x == 0 {
-		return "0"
-	}
-	s := new(big.Float).SetFloat64(x).Text('e', 800)
-	i := strings.IndexByte(s, 'e')
-	mant, exp := s[:i], s[i:]
-	mant = strings.TrimSuffix(strings.TrimRight(mant, "0"), ".")
-	if exp == "e+00" {
-		return mant
-	}
-	return mant + exp
 }

@@ -45,7 +45,10 @@ func TestBracket(t *testing.T) {
 		if !(lo <= 0.709364 && 0.709364 <= up) {
 			t.Errorf("0.709364 outside [%s, %s]", r.Lower, r.Upper)
 		}
-		c := r.Certificate()
+		c, err := r.Certificate()
+		if err != nil {
+			t.Fatal(err)
+		}
 		if err := certificates.Seal(c); err != nil {
 			t.Fatal(err)
 		}

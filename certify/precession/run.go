@@ -1,6 +1,7 @@
 package precession
 
 import (
+	"errors"
 	"fmt"
 	"math"
 	"math/big"
@@ -132,8 +133,6 @@ func Run(o Options) (*Result, error) {
 	return res, nil
 }
 
-func exact(v float64) string { return new(big.Float).SetFloat64(v).Text('f', -1) }
-
 func up(v float64) string { return interval.DecimalUp(new(big.Float).SetFloat64(v), 12) }
 
 func ints(v []float64) []string {
@@ -144,21 +143,23 @@ func ints(v []float64) []string {
 	return out
 }
 
-// Certificate returns the precession-bracket certificate (unsealed).
-func (r *Result) Certificate() *certificates.Certificate {
+// Certificate returns the precession-bracket certificate (unsealed); the
+// error reports a number that would not read back.
+func (r *Result) Certificate() (*certificates.Certificate, error) {
 	w := r.Witness
+	var n certificates.Parser
 	p := &certificates.Precession{
 		Problem: certificates.PrecessionProblem,
 		Basis:   certificates.PrecessionBasis,
-		Lower:   r.Lower,
-		Upper:   r.Upper,
+		Lower:   n.Decimal(r.Lower),
+		Upper:   n.Decimal(r.Upper),
 		Witness: certificates.PrecessionWitness{
 			Residue: w.Sector.R,
-			Even:    ints(w.X),
-			Odd:     ints(w.Y),
+			Even:    n.Decimals(ints(w.X)),
+			Odd:     n.Decimals(ints(w.Y)),
 			Rayleigh: certificates.PrecessionBracket{
-				Lower: interval.DecimalDown(new(big.Float).SetFloat64(w.Rayleigh.Lo()), 16),
-				Upper: interval.DecimalUp(new(big.Float).SetFloat64(w.Rayleigh.Hi()), 16),
+				Lower: n.Decimal(interval.DecimalDown(new(big.Float).SetFloat64(w.Rayleigh.Lo()), 16)),
+				Upper: n.Decimal(interval.DecimalUp(new(big.Float).SetFloat64(w.Rayleigh.Hi()), 16)),
 			},
 		},
 		Work: certificates.PrecessionCertifier{
@@ -167,17 +168,26 @@ func (r *Result) Certificate() *certificates.Certificate {
 	}
 	tail, margin := 0.0, math.Inf(1)
 	for _, q := range r.Proofs {
+		lam, err1 := certificates.ShortDecimal(q.Lambda)
+		eps, err2 := certificates.ShortDecimal(q.Epsilon)
+		if err := errors.Join(err1, err2); err != nil {
+			return nil, err
+		}
 		p.Sectors = append(p.Sectors, certificates.PrecessionSector{
 			Residue:   q.Sector.R,
 			Cutoff:    q.Cutoff,
 			SumLength: q.Length,
-			Lambda:    exact(q.Lambda),
-			Epsilon:   exact(q.Epsilon),
-			NormBound: up(q.Bound.Hi()),
+			Lambda:    lam,
+			Epsilon:   eps,
+			NormBound: n.Decimal(up(q.Bound.Hi())),
 		})
 		tail = math.Max(tail, q.TailH)
 		margin = math.Min(margin, q.Margin)
 	}
-	p.Errors = certificates.PrecessionErrors{TailH: up(tail), Margin: interval.DecimalDown(new(big.Float).SetFloat64(margin), 6), MatVecError: up(w.MatVecError)}
-	return &certificates.Certificate{Kind: certificates.KindPrecession, Precession: p}
+	p.Errors = certificates.PrecessionErrors{TailH: n.Decimal(up(tail)), Margin: n.Decimal(interval.DecimalDown(new(big.Float).SetFloat64(margin), 6)),
+		MatVecError: n.Decimal(up(w.MatVecError))}
+	if err := n.Err(); err != nil {
+		return nil, fmt.Errorf("precession certificate: %v", err)
+	}
+	return &certificates.Certificate{Kind: certificates.KindPrecession, Precession: p}, nil
 }

@@ -112,12 +112,12 @@ func run[T interval.Real[T]](cfg Config, prec T) (*Outcome, error) {
 	var terms []regions.Term[interval.F]
 	var weights []string
 	for _, ct := range cfg.Terms {
-		t, err := regions.NewTerm(like, ct.Kind, ct.Params)
+		t, err := regions.NewTerm(like, ct.Kind, ct.ParamText())
 		if err != nil {
 			return nil, err
 		}
-		if ct.Weight != "" {
-			weights = append(weights, ct.Weight)
+		if ct.Weight.IsSet() {
+			weights = append(weights, ct.Weight.String())
 		}
 		if err := regions.Admissible(t.Kind(), t.Start(), u0, ok); err != nil {
 			return nil, err
@@ -258,8 +258,12 @@ func run[T interval.Real[T]](cfg Config, prec T) (*Outcome, error) {
 		return nil, err
 	}
 	if cfg.Shards > 0 {
-		cert.Relaxation.Shard = &certificates.Shard{Index: cfg.Shard, Count: cfg.Shards,
-			Lo: regions.RatString(new(big.Rat).SetFloat64(-lo)), Hi: regions.RatString(new(big.Rat).SetFloat64(hi))}
+		sLo, err1 := certificates.FloatDecimal(-lo)
+		sHi, err2 := certificates.FloatDecimal(hi)
+		if err := errors.Join(err1, err2); err != nil {
+			return nil, err
+		}
+		cert.Relaxation.Shard = &certificates.Shard{Index: cfg.Shard, Count: cfg.Shards, Lo: sLo, Hi: sHi}
 		cert.Relaxation.Below.From = cert.Relaxation.Shard.Lo
 		cert.Relaxation.Above.From = cert.Relaxation.Shard.Hi
 	}
@@ -416,50 +420,59 @@ func regimeGrid(lo, hi float64) []*big.Rat {
 func assemble[T interval.Real[T]](p regions.Problem, nf regions.Normal, rel regions.Relaxation[T], weights []string, edge regions.Edge,
 	claim *big.Rat, cells []certify.ProvedCell[T], lo, hi float64, below, above T) (*certificates.Certificate, error) {
 	like := below
-	num := func(n regions.Number) string { return n.String() }
+	num := func(n regions.Number) certificates.Fraction { return certificates.FractionOf(n.Rat()) }
 	prob := certificates.Problem{
-		Vertex: [2]string{num(p.Vertex[0]), num(p.Vertex[1])},
-		Rays: [2][2]string{{num(p.Rays[0][0]), num(p.Rays[0][1])},
+		Vertex: [2]certificates.Fraction{num(p.Vertex[0]), num(p.Vertex[1])},
+		Rays: [2][2]certificates.Fraction{{num(p.Rays[0][0]), num(p.Rays[0][1])},
 			{num(p.Rays[1][0]), num(p.Rays[1][1])}},
-		Halfplane: certificates.Halfplane{Normal: [2]string{num(p.Halfplane.Normal[0]), num(p.Halfplane.Normal[1])},
+		Halfplane: certificates.Halfplane{Normal: [2]certificates.Fraction{num(p.Halfplane.Normal[0]), num(p.Halfplane.Normal[1])},
 			Offset: num(p.Halfplane.Offset)},
 		Edge: string(p.Edge),
 	}
-	u0, ok := nf.Threshold()
-	thr := certificates.NoThreshold
-	if ok {
-		thr = regions.RatString(u0)
+	var thr *big.Rat
+	if u0, ok := nf.Threshold(); ok {
+		thr = u0
 	}
+	frac := certificates.FractionOf
 	r := &certificates.Relaxation{
 		Problem: prob,
 		Normal: certificates.NormalForm{
-			Map: [4]string{regions.RatString(nf.S[0]), regions.RatString(nf.S[1]), regions.RatString(nf.S[2]), regions.RatString(nf.S[3])},
-			A:   regions.RatString(nf.A), B: regions.RatString(nf.B), D: regions.RatString(nf.D), Threshold: thr,
+			Map: [4]certificates.Fraction{frac(nf.S[0]), frac(nf.S[1]), frac(nf.S[2]), frac(nf.S[3])},
+			A:   frac(nf.A), B: frac(nf.B), D: frac(nf.D), Threshold: certificates.NewThreshold(thr),
 		},
 		PrecisionBits: int(like.Prec()),
 	}
+	var n certificates.Parser
 	var quad, trunc float64
 	for i, t := range rel.Terms {
-		r.Terms = append(r.Terms, certificates.Term{Kind: t.Kind(), Params: t.Params(), Weight: weights[i]})
+		r.Terms = append(r.Terms, certificates.Term{Kind: t.Kind(), Params: n.Params(t.Params()), Weight: n.Decimal(weights[i])})
 		q, tr := t.Budget()
 		quad, trunc = math.Max(quad, q), math.Max(trunc, tr)
 	}
-	claimStr := regions.RatString(claim)
-	r.Claim = certificates.Claim{Edge: string(edge), Bound: claimStr, Statement: statement(edge, claimStr)}
+	claimD, err := certificates.DecimalOf(claim)
+	if err != nil {
+		return nil, err
+	}
+	r.Claim = certificates.Claim{Edge: string(edge), Bound: claimD, Statement: statement(edge, claimD.String())}
 	var rounding float64
 	for _, c := range cells {
 		l, h, err := interval.Decimals(c.Value, 17)
 		if err != nil {
 			return nil, err
 		}
-		r.Cover = append(r.Cover, certificates.Cell{Lo: regions.RatString(c.Lo), Hi: regions.RatString(c.Hi), EigLower: l, EigUpper: h})
+		lo, err1 := certificates.DecimalOf(c.Lo)
+		hi, err2 := certificates.DecimalOf(c.Hi)
+		if err := errors.Join(err1, err2); err != nil {
+			return nil, err
+		}
+		r.Cover = append(r.Cover, certificates.Cell{Lo: lo, Hi: hi, EigLower: n.Decimal(l), EigUpper: n.Decimal(h)})
 	}
 	// Rounding: the width of a point enclosure at the worst cell's midpoint.
 	tailB := rel.Tail(like.Float(lo), -1).B.Re.Hi()
 	tailB = math.Max(tailB, rel.Tail(like.Float(hi), 1).B.Re.Hi())
 	bl, bh := tailBounds(below, above, edge)
-	r.Below = certificates.Tail{From: r.Cover[0].Lo, Bound: bl, Lemma: "quadrant-exp-tail-v1"}
-	r.Above = certificates.Tail{From: r.Cover[len(r.Cover)-1].Hi, Bound: bh, Lemma: "quadrant-exp-tail-v1"}
+	r.Below = certificates.Tail{From: r.Cover[0].Lo, Bound: n.Decimal(bl), Lemma: "quadrant-exp-tail-v1"}
+	r.Above = certificates.Tail{From: r.Cover[len(r.Cover)-1].Hi, Bound: n.Decimal(bh), Lemma: "quadrant-exp-tail-v1"}
 	mid := cells[0]
 	for _, c := range cells {
 		if edgeValue(c.Value, edge) > edgeValue(mid.Value, edge) {
@@ -470,8 +483,13 @@ func assemble[T interval.Real[T]](p regions.Problem, nf regions.Normal, rel regi
 	m.Quo(m, big.NewRat(2, 1))
 	mf, _ := m.Float64()
 	rounding = rel.Enclose(like.Float(mf)).Eig(edge).Rad() * 2
-	up := func(v float64) string { return interval.DecimalUp(new(big.Float).SetFloat64(v), 3) }
+	up := func(v float64) certificates.Decimal {
+		return n.Decimal(interval.DecimalUp(new(big.Float).SetFloat64(v), 3))
+	}
 	r.Budget = certificates.Budget{Quadrature: up(quad), Truncation: up(trunc), Tails: up(tailB), Rounding: up(rounding)}
+	if err := n.Err(); err != nil {
+		return nil, fmt.Errorf("the certificate's numbers do not read: %v", err)
+	}
 	return &certificates.Certificate{Kind: certificates.KindRelaxation, Relaxation: r}, nil
 }
 

@@ -23,7 +23,7 @@ func TestRunHighPrecision(t *testing.T) {
 		t.Skip("set WEDGEBOUND_SLOW=1")
 	}
 	ref := runOnce(t, "exp150", Config{Problem: regions.Presets["backflow"], Terms: expSpecs([]string{"150"}, nil), Margin: 2e-4, Workers: 2})
-	w := []string{ref.Certificate.Relaxation.Terms[0].Weight}
+	w := []string{ref.Certificate.Relaxation.Terms[0].Weight.String()}
 	for _, p := range []uint{128, 256} {
 		o, err := Run(Config{Problem: regions.Presets["backflow"], Terms: expSpecs([]string{"150"}, w), Margin: 2e-4, Workers: 2, Prec: p})
 		if err != nil {

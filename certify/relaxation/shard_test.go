@@ -97,15 +97,15 @@ func TestShardsMergeToWholeRun(t *testing.T) {
 		return ps
 	})
 	bad("different regions", "different terms", func(ps []*certificates.Certificate) []*certificates.Certificate {
-		ps[2].Relaxation.Terms[0].Weight = "8.5"
+		ps[2].Relaxation.Terms[0].Weight = certificates.MustDecimal("8.5")
 		return ps
 	})
 	// A part of another run: its weights, and therefore its range, differ.
 	// The message names the terms (issue 17: it named the range and a
 	// "shard 0" that does not exist).
 	bad("other run", "different terms", func(ps []*certificates.Certificate) []*certificates.Certificate {
-		ps[1].Relaxation.Terms[0].Weight = "8.5"
-		ps[1].Relaxation.Shard.Lo = "-50"
+		ps[1].Relaxation.Terms[0].Weight = certificates.MustDecimal("8.5")
+		ps[1].Relaxation.Shard.Lo = certificates.MustDecimal("-50")
 		return ps
 	})
 	for _, ps := range [][]*certificates.Certificate{{clone(parts[0]), clone(parts[1])}, {parts[0], parts[1], parts[1]}} {

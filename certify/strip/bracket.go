@@ -4,8 +4,8 @@ import (
 	"errors"
 	"fmt"
 	"math"
-	"math/big"
 
+	"wedgebound/certificates"
 	"wedgebound/interval"
 )
 
@@ -410,9 +410,9 @@ func upStr(x interval.F) string {
 
 // exactDecimal writes the float64 v exactly in decimal.
 func exactDecimal(v float64) string {
-	if v == 0 {
-		return "0"
+	d, err := certificates.FloatDecimal(v)
+	if err != nil {
+		return fmt.Sprint(v) // NaN or an infinity: no number reads it back
 	}
-	r, _ := new(big.Float).SetFloat64(v).Rat(nil)
-	return ratText(r)
+	return d.String()
 }

@@ -3,10 +3,8 @@ package strip
 import (
 	"errors"
 	"fmt"
-	"math"
 	"math/big"
 	"strconv"
-	"strings"
 
 	"wedgebound/certificates"
 	"wedgebound/interval"
@@ -40,37 +38,16 @@ func (r *Result) Certificate() (*certificates.Certificate, error) {
 	if r.Basis != certificates.StripBasis {
 		return nil, errors.New("strip: the result's basis is not the one the certificate schema knows")
 	}
-	num := func(s, name string) (*big.Rat, error) {
-		v, err := certificates.Dec(s, name)
-		if err != nil {
-			return nil, fmt.Errorf("strip: cannot certify: %v", err)
-		}
-		return v, nil
+	var n certificates.Parser
+	eD, tD := n.Decimal(r.Errors.AlphaRounding), n.Decimal(r.Errors.DiscardedPart)
+	glD, ghD := n.Decimal(r.GalerkinLowest), n.Decimal(r.GalerkinHighest)
+	advR := certificates.StripBracket{Lower: n.Decimal(r.AdvantageWitness.Rayleigh.Lower), Upper: n.Decimal(r.AdvantageWitness.Rayleigh.Upper)}
+	defR := certificates.StripBracket{Lower: n.Decimal(r.DeficitWitness.Rayleigh.Lower), Upper: n.Decimal(r.DeficitWitness.Rayleigh.Upper)}
+	if err := n.Err(); err != nil {
+		return nil, fmt.Errorf("strip: cannot certify: %v", err)
 	}
-	e, err := num(r.Errors.AlphaRounding, "alpha_rounding")
-	if err != nil {
-		return nil, err
-	}
-	t, err := num(r.Errors.DiscardedPart, "discarded_part")
-	if err != nil {
-		return nil, err
-	}
-	gl, err := num(r.GalerkinLowest, "galerkin_lowest")
-	if err != nil {
-		return nil, err
-	}
-	gh, err := num(r.GalerkinHighest, "galerkin_highest")
-	if err != nil {
-		return nil, err
-	}
-	rMinHi, err := num(r.AdvantageWitness.Rayleigh.Upper, "advantage_witness.rayleigh.upper")
-	if err != nil {
-		return nil, err
-	}
-	rMaxLo, err := num(r.DeficitWitness.Rayleigh.Lower, "deficit_witness.rayleigh.lower")
-	if err != nil {
-		return nil, err
-	}
+	e, t, gl, gh := eD.Rat(), tD.Rat(), glD.Rat(), ghD.Rat()
+	rMinHi, rMaxLo := advR.Upper.Rat(), defR.Lower.Rat()
 	zero := new(big.Rat)
 	ratMax := func(a, b *big.Rat) *big.Rat {
 		if a.Cmp(b) >= 0 {
@@ -93,55 +70,58 @@ func (r *Result) Certificate() (*certificates.Certificate, error) {
 	if advLo.Cmp(advHi) > 0 || defLo.Cmp(defHi) > 0 {
 		return nil, errors.New("strip: cannot certify: the recorded numbers give an empty bracket")
 	}
-	adv := certificates.StripBracket{Lower: ratDown(advLo, certDigits), Upper: ratUp(advHi, certDigits)}
-	def := certificates.StripBracket{Lower: ratDown(defLo, certDigits), Upper: ratUp(defHi, certDigits)}
+	adv := certificates.StripBracket{Lower: n.Decimal(ratDown(advLo, certDigits)), Upper: n.Decimal(ratUp(advHi, certDigits))}
+	def := certificates.StripBracket{Lower: n.Decimal(ratDown(defLo, certDigits)), Upper: n.Decimal(ratUp(defHi, certDigits))}
 
 	var units *certificates.StripUnits
 	if u := r.Alpha.Units; u != nil {
 		units = &certificates.StripUnits{Mass: u.Mass, Length: u.Length, Time: u.Time}
 	}
 	s := &certificates.Strip{
-		Alpha:     certificates.StripAlpha{Value: r.Alpha.Value, Lower: r.Alpha.Lower, Upper: r.Alpha.Upper, Units: units},
-		AlphaUsed: r.AlphaUsed,
+		Alpha:     certificates.StripAlpha{Value: n.Alpha(r.Alpha.Value), Lower: n.Decimal(r.Alpha.Lower), Upper: n.Decimal(r.Alpha.Upper), Units: units},
+		AlphaUsed: n.Decimal(r.AlphaUsed),
 		Basis:     r.Basis,
 		BasisSize: r.BasisSize,
 		Advantage: adv,
 		Deficit:   def,
 		AdvantageWitness: certificates.StripWitness{
-			Coefficients: exactDecimals(r.AdvantageWitness.Coefficients),
-			Rayleigh:     certificates.StripBracket(r.AdvantageWitness.Rayleigh),
+			Coefficients: exactDecimals(&n, r.AdvantageWitness.Coefficients),
+			Rayleigh:     advR,
 		},
 		DeficitWitness: certificates.StripWitness{
-			Coefficients: exactDecimals(r.DeficitWitness.Coefficients),
-			Rayleigh:     certificates.StripBracket(r.DeficitWitness.Rayleigh),
+			Coefficients: exactDecimals(&n, r.DeficitWitness.Coefficients),
+			Rayleigh:     defR,
 		},
-		GalerkinLowest:  r.GalerkinLowest,
-		GalerkinHighest: r.GalerkinHighest,
+		GalerkinLowest:  glD,
+		GalerkinHighest: ghD,
 		Errors: certificates.StripErrors{
-			AlphaRounding: r.Errors.AlphaRounding,
-			DiscardedPart: r.Errors.DiscardedPart,
-			DiscardedEtaX: r.Ellipses.TailX,
-			DiscardedEtaY: r.Ellipses.TailY,
+			AlphaRounding: eD,
+			DiscardedPart: tD,
+			DiscardedEtaX: n.Decimal(r.Ellipses.TailX),
+			DiscardedEtaY: n.Decimal(r.Ellipses.TailY),
 		},
 		Statement: fmt.Sprintf("For K_alpha(x,y) = (exp(-i alpha (x^2-y^2)/2) - 1)/(2 pi i (x-y)) on L^2[-1,0] with alpha = %s: "+
 			"the advantage A(alpha) = -inf spec K_alpha lies in [%s, %s] and sup spec K_alpha lies in [%s, %s]",
 			r.Alpha.Value, adv.Lower, adv.Upper, def.Lower, def.Upper),
 		Certifier: certificates.StripCertifier{
 			Method:                     "Gauss-Legendre Galerkin matrix with a Bernstein-ellipse remainder; float Cholesky factors with interval residuals for the Galerkin bounds; Chebyshev-coefficient bound for the discarded part",
-			WidthTarget:                strconv.FormatFloat(r.WidthTarget, 'g', -1, 64),
+			WidthTarget:                n.Sci(strconv.FormatFloat(r.WidthTarget, 'g', -1, 64)),
 			QuadratureNodes:            r.QuadratureNodes,
-			QuadratureEta:              r.Ellipses.Quadrature,
-			LowestEstimate:             r.LowestEstimate,
-			HighestEstimate:            r.HighestEstimate,
-			EntryRounding:              r.Errors.EntryRounding,
-			EntryQuadrature:            r.Errors.EntryQuadrature,
-			LowestShift:                r.Errors.LowestShift,
-			LowestResidual:             r.Errors.LowestResidual,
-			HighestShift:               r.Errors.HighestShift,
-			HighestResidual:            r.Errors.HighestResidual,
-			AdvantageWitnessQuadrature: r.Errors.AdvantageWitnessQuadrature,
-			DeficitWitnessQuadrature:   r.Errors.DeficitWitnessQuadrature,
+			QuadratureEta:              n.Decimal(r.Ellipses.Quadrature),
+			LowestEstimate:             n.Decimal(r.LowestEstimate),
+			HighestEstimate:            n.Decimal(r.HighestEstimate),
+			EntryRounding:              n.Decimal(r.Errors.EntryRounding),
+			EntryQuadrature:            n.Decimal(r.Errors.EntryQuadrature),
+			LowestShift:                n.Decimal(r.Errors.LowestShift),
+			LowestResidual:             n.Decimal(r.Errors.LowestResidual),
+			HighestShift:               n.Decimal(r.Errors.HighestShift),
+			HighestResidual:            n.Decimal(r.Errors.HighestResidual),
+			AdvantageWitnessQuadrature: n.Decimal(r.Errors.AdvantageWitnessQuadrature),
+			DeficitWitnessQuadrature:   n.Decimal(r.Errors.DeficitWitnessQuadrature),
 		},
+	}
+	if err := n.Err(); err != nil {
+		return nil, fmt.Errorf("strip: cannot certify: %v", err)
 	}
 	c := &certificates.Certificate{Kind: certificates.KindStrip, Strip: s}
 	// The schema's strict reading is the final check of what was written.
@@ -170,28 +150,14 @@ func ratDirected(v *big.Rat, n int, up bool) string {
 	return interval.DecimalDown(f, n)
 }
 
-// exactDecimals writes each float64 exactly.
-func exactDecimals(v []float64) []string {
-	out := make([]string, len(v))
+// exactDecimals writes each float64 exactly in the scientific form
+// (certificates.SciFloat, every exponent written: 5e-01, 1e+00).
+func exactDecimals(n *certificates.Parser, v []float64) []certificates.SciDecimal {
+	out := make([]certificates.SciDecimal, len(v))
 	for i, x := range v {
-		out[i] = exactFloat(x)
+		d, err := certificates.SciFloat(x, certificates.SciAlways)
+		n.Note(err)
+		out[i] = d
 	}
 	return out
-}
-
-// exactFloat writes the float64 x exactly as a decimal in scientific form
-// (a float64 has at most 767 significant decimal digits).
-func exactFloat(x float64) string {
-	if x == 0 || math.IsInf(x, 0) || math.IsNaN(x) {
-		if x == 0 {
-			return "0"
-		}
-		return strconv.FormatFloat(x, 'g', -1, 64)
-	}
-	s := new(big.Float).SetFloat64(x).Text('e', 800)
-	i := strings.IndexByte(s, 'e')
-	mant, exp := s[:i], s[i:]
-	mant = strings.TrimRight(mant, "0")
-	mant = strings.TrimSuffix(mant, ".")
-	return mant + exp
 }

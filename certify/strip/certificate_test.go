@@ -12,11 +12,11 @@ import (
 
 func rat(t *testing.T, s string) *big.Rat {
 	t.Helper()
-	r, err := certificates.Dec(s, "test")
+	r, err := certificates.ParseSci(s)
 	if err != nil {
 		t.Fatal(err)
 	}
-	return r
+	return r.Rat()
 }
 
 // certificateFor converts and round-trips a result through the strict
@@ -54,28 +54,28 @@ func TestCertificateAlpha50(t *testing.T) {
 		t.Fatalf("kind %q", c.Kind)
 	}
 	s := c.Strip
-	if s.BasisSize != r.BasisSize || s.AlphaUsed != r.AlphaUsed || s.Alpha.Value != "50" || s.Basis != BasisDescription {
+	if s.BasisSize != r.BasisSize || s.AlphaUsed.String() != r.AlphaUsed || s.Alpha.Value.String() != "50" || s.Basis != BasisDescription {
 		t.Errorf("header differs: %+v", s.Alpha)
 	}
 	for w, pair := range []struct {
-		rec []string
+		rec []certificates.SciDecimal
 		f   []float64
 	}{{s.AdvantageWitness.Coefficients, r.AdvantageWitness.Coefficients}, {s.DeficitWitness.Coefficients, r.DeficitWitness.Coefficients}} {
 		for j, str := range pair.rec {
 			want, _ := new(big.Float).SetFloat64(pair.f[j]).Rat(nil)
-			if rat(t, str).Cmp(want) != 0 {
+			if rat(t, str.String()).Cmp(want) != 0 {
 				t.Fatalf("witness %d coefficient %d: %s is not the float64 %v exactly", w, j, str, pair.f[j])
 			}
 		}
 	}
-	lo, hi := rat(t, s.Advantage.Lower), rat(t, s.Advantage.Upper)
+	lo, hi := rat(t, s.Advantage.Lower.String()), rat(t, s.Advantage.Upper.String())
 	flo, _ := new(big.Float).SetFloat64(r.AdvantageF.Lo()).Rat(nil)
 	fhi, _ := new(big.Float).SetFloat64(r.AdvantageF.Hi()).Rat(nil)
 	slack := big.NewRat(1, 1e15)
 	if d := new(big.Rat).Sub(flo, lo); d.Abs(d).Cmp(slack) > 0 {
 		t.Errorf("lower end %s far from the float bound %v", s.Advantage.Lower, r.AdvantageF.Lo())
 	}
-	upSlack := new(big.Rat).Add(slack, new(big.Rat).Mul(rat(t, s.Errors.DiscardedPart), big.NewRat(1, 1e5)))
+	upSlack := new(big.Rat).Add(slack, new(big.Rat).Mul(rat(t, s.Errors.DiscardedPart.String()), big.NewRat(1, 1e5)))
 	if d := new(big.Rat).Sub(hi, fhi); d.Cmp(upSlack) > 0 || d.Cmp(new(big.Rat).Neg(slack)) < 0 {
 		t.Errorf("upper end %s far from the float bound %v", s.Advantage.Upper, r.AdvantageF.Hi())
 	}
@@ -90,12 +90,12 @@ func TestCertificateAlpha50(t *testing.T) {
 	}
 	// The recorded numbers give exactly the recorded brackets (checked
 	// again here in rationals, independently of Certificate's code path).
-	e, tl := rat(t, s.Errors.AlphaRounding), rat(t, s.Errors.DiscardedPart)
-	need := new(big.Rat).Neg(new(big.Rat).Add(rat(t, s.AdvantageWitness.Rayleigh.Upper), e))
+	e, tl := rat(t, s.Errors.AlphaRounding.String()), rat(t, s.Errors.DiscardedPart.String())
+	need := new(big.Rat).Neg(new(big.Rat).Add(rat(t, s.AdvantageWitness.Rayleigh.Upper.String()), e))
 	if lo.Cmp(need) > 0 {
 		t.Errorf("lower end %s exceeds what the witness gives, %s", s.Advantage.Lower, need.FloatString(20))
 	}
-	gl := rat(t, s.GalerkinLowest)
+	gl := rat(t, s.GalerkinLowest.String())
 	if gl.Sign() > 0 {
 		gl = new(big.Rat)
 	}
@@ -103,10 +103,10 @@ func TestCertificateAlpha50(t *testing.T) {
 	if hi.Cmp(up) < 0 {
 		t.Errorf("upper end %s below what the Galerkin bound gives, %s", s.Advantage.Upper, up.FloatString(20))
 	}
-	if !strings.Contains(s.Statement, "alpha = 50") || !strings.Contains(s.Statement, s.Advantage.Lower) {
+	if !strings.Contains(s.Statement, "alpha = 50") || !strings.Contains(s.Statement, s.Advantage.Lower.String()) {
 		t.Errorf("statement %q", s.Statement)
 	}
-	if s.Errors.DiscardedEtaX != r.Ellipses.TailX || s.Certifier.QuadratureNodes != r.QuadratureNodes {
+	if s.Errors.DiscardedEtaX.String() != r.Ellipses.TailX || s.Certifier.QuadratureNodes != r.QuadratureNodes {
 		t.Errorf("ellipses or quadrature not recorded")
 	}
 }
@@ -124,10 +124,10 @@ func TestCertificateUnits(t *testing.T) {
 	}
 	c := certificateFor(t, r)
 	s := c.Strip
-	if !strings.HasPrefix(s.Alpha.Value, "2*pi*") || s.Alpha.Units == nil || s.Alpha.Units.Length != "1um" {
+	if !strings.HasPrefix(s.Alpha.Value.String(), "2*pi*") || s.Alpha.Units == nil || s.Alpha.Units.Length != "1um" {
 		t.Errorf("alpha %+v", s.Alpha)
 	}
-	if rat(t, s.Errors.AlphaRounding).Sign() <= 0 {
+	if rat(t, s.Errors.AlphaRounding.String()).Sign() <= 0 {
 		t.Errorf("alpha rounding %s should be positive for an irrational alpha", s.Errors.AlphaRounding)
 	}
 }
@@ -160,17 +160,26 @@ func TestBasisDescriptionMatchesSchema(t *testing.T) {
 	}
 }
 
-// exactFloat writes float64 values exactly, including subnormals.
+// exactDecimals writes float64 values exactly, including subnormals, in
+// the exponent form the strip schema uses (every exponent written).
 func TestExactFloat(t *testing.T) {
+	exactFloat := func(x float64) string {
+		var n certificates.Parser
+		d := exactDecimals(&n, []float64{x})
+		if err := n.Err(); err != nil {
+			t.Fatalf("%v: %v", x, err)
+		}
+		return d[0].String()
+	}
 	for _, x := range []float64{1, -1, 0.1, 1.0 / 3, 2.7614625649615566e-32, -5e-324, math.MaxFloat64, 0x1p-1022, 123456789.125} {
 		s := exactFloat(x)
 		want, _ := new(big.Float).SetFloat64(x).Rat(nil)
-		got, err := certificates.Dec(s, "x")
-		if err != nil || got.Cmp(want) != 0 {
+		got, err := certificates.ParseSci(s)
+		if err != nil || got.Rat().Cmp(want) != 0 {
 			t.Errorf("%v: %q (%v)", x, s, err)
 		}
 	}
-	if exactFloat(0) != "0" || exactFloat(0.5) != "5e-01" {
-		t.Errorf("0 -> %q, 0.5 -> %q", exactFloat(0), exactFloat(0.5))
+	if exactFloat(0) != "0" || exactFloat(0.5) != "5e-01" || exactFloat(1) != "1e+00" {
+		t.Errorf("0 -> %q, 0.5 -> %q, 1 -> %q", exactFloat(0), exactFloat(0.5), exactFloat(1))
 	}
 }

@@ -3,8 +3,6 @@ package witness
 import (
 	"fmt"
 	"math/big"
-	"strconv"
-	"strings"
 
 	"wedgebound/certificates"
 	"wedgebound/interval"
@@ -15,37 +13,39 @@ func Statement(bound string) string {
 	return fmt.Sprintf("The backflow constant c_bm (the supremum of the backflow quadratic form over normalised positive-momentum states) is at least %s: the recorded state has Rayleigh quotient at least this value.", bound)
 }
 
-func enclose(x interval.F) (certificates.Interval, error) {
-	lo, hi, err := interval.Decimals(x, 17)
-	return certificates.Interval{Lower: lo, Upper: hi}, err
-}
-
 // Certificate builds the (unsealed) certificate of a result.
 func (r *Result) Certificate(gramTol float64) (*certificates.Certificate, error) {
+	var n certificates.Parser
+	enclose := func(x interval.F) certificates.Interval {
+		lo, hi, err := interval.Decimals(x, 17)
+		n.Note(err)
+		return certificates.Interval{Lower: n.Decimal(lo), Upper: n.Decimal(hi)}
+	}
+	exact := func(x *big.Rat) certificates.Decimal {
+		d, err := certificates.DecimalOf(x)
+		n.Note(err)
+		return d
+	}
+	short := func(x float64) certificates.Decimal {
+		d, err := certificates.ShortDecimal(x)
+		n.Note(err)
+		return d
+	}
 	w := &certificates.Witness{
 		Problem: "backflow",
 		Kernel:  certificates.WitnessKernel,
-		Bound:   r.Bound,
+		Bound:   n.Decimal(r.Bound),
 	}
 	for i, f := range r.Basis {
-		w.Basis = append(w.Basis, certificates.WitnessFunc{Chirp: f.Chirp.String(), Power: f.Power, Width: ratText(f.Width)})
-		w.Coefficients = append(w.Coefficients, ratText(r.Coef[i]))
+		w.Basis = append(w.Basis, certificates.WitnessFunc{Chirp: f.Chirp.String(), Power: f.Power, Width: exact(f.Width)})
+		w.Coefficients = append(w.Coefficients, exact(r.Coef[i]))
 	}
-	var err error
-	if w.Norm, err = enclose(r.Proof.Norm); err != nil {
-		return nil, err
-	}
-	if w.Backflow, err = enclose(r.Proof.Backflow); err != nil {
-		return nil, err
-	}
-	if w.Quotient, err = enclose(r.Proof.Quotient); err != nil {
-		return nil, err
-	}
+	w.Norm = enclose(r.Proof.Norm)
+	w.Backflow = enclose(r.Proof.Backflow)
+	w.Quotient = enclose(r.Proof.Quotient)
 	_, q, err := interval.Decimals(interval.PointF(r.Proof.Remainder), 3)
-	if err != nil {
-		return nil, err
-	}
-	w.Errors.Quadrature = q
+	n.Note(err)
+	w.Errors.Quadrature = n.Decimal(q)
 	nodes := 0
 	for _, p := range r.Proof.Panels {
 		nodes += p.Nodes
@@ -54,35 +54,14 @@ func (r *Result) Certificate(gramTol float64) (*certificates.Certificate, error)
 	w.Certifier = certificates.WitnessCertifier{
 		Panels:   len(r.Proof.Panels),
 		Nodes:    nodes,
-		Estimate: strconv.FormatFloat(r.Estimate, 'f', -1, 64),
-		GramTol:  strconv.FormatFloat(gramTol, 'f', -1, 64),
+		Estimate: short(r.Estimate),
+		GramTol:  short(gramTol),
 		Method:   "time integral over [-1, 1] of closed-form Gaussian moments; verified Gauss-Legendre on geometrically graded panels with Bernstein-ellipse remainders; norm in closed form",
 	}
+	if err := n.Err(); err != nil {
+		return nil, fmt.Errorf("witness certificate: %v", err)
+	}
 	return &certificates.Certificate{Kind: certificates.KindWitness, Witness: w}, nil
-}
-
-// ratText writes a rational with a terminating decimal expansion exactly.
-func ratText(r *big.Rat) string {
-	d := new(big.Int).Set(r.Denom())
-	k := 0
-	two, five := big.NewInt(2), big.NewInt(5)
-	for z := new(big.Int); ; k++ {
-		if d.Cmp(big.NewInt(1)) == 0 {
-			break
-		}
-		if z.Mod(d, two).Sign() == 0 {
-			d.Quo(d, two)
-		} else if z.Mod(d, five).Sign() == 0 {
-			d.Quo(d, five)
-		} else {
-			return r.FloatString(40)
-		}
-	}
-	s := r.FloatString(k)
-	if k > 0 {
-		s = strings.TrimRight(strings.TrimRight(s, "0"), ".")
-	}
-	return s
 }
 
 // FromCertificate reads basis and coefficients back from a witness section.
@@ -94,13 +73,9 @@ func FromCertificate(w *certificates.Witness) ([]Func, []*big.Rat, error) {
 		if err != nil {
 			return nil, nil, err
 		}
-		b, err := certificates.Dec(f.Width, fmt.Sprintf("basis[%d].width", i))
-		if err != nil {
-			return nil, nil, err
-		}
-		c, err := certificates.Dec(w.Coefficients[i], fmt.Sprintf("coefficients[%d]", i))
-		if err != nil {
-			return nil, nil, err
+		b, c := f.Width.Rat(), w.Coefficients[i].Rat()
+		if b == nil || c == nil {
+			return nil, nil, fmt.Errorf("basis[%d]: missing width or coefficient", i)
 		}
 		basis = append(basis, Func{Chirp: ch, Power: f.Power, Width: b})
 		coef = append(coef, c)

@@ -102,15 +102,21 @@ func runCertify(args []string, stdout, stderr io.Writer) int {
 			return fail("--weights: %d weights given for %d terms", len(ws), len(ks))
 		}
 	}
-	for i, k := range ks {
-		t := certificates.Term{Kind: "exp", Params: map[string]string{"k": k}}
-		if ws != nil {
-			t.Weight = ws[i]
-		}
-		cfg.Terms = append(cfg.Terms, t)
-	}
 	if err := checkCertifyInput(p, ks, ws); err != nil {
 		return fail("%v", err)
+	}
+	for i, k := range ks {
+		kd, err := certificates.ParseDecimal(k)
+		if err != nil {
+			return fail("--exp %s: %v", k, err)
+		}
+		t := certificates.Term{Kind: "exp", Params: map[string]certificates.Decimal{"k": kd}}
+		if ws != nil {
+			if t.Weight, err = certificates.ParseDecimal(ws[i]); err != nil {
+				return fail("--weights: weight %d: %v", i+1, err)
+			}
+		}
+		cfg.Terms = append(cfg.Terms, t)
 	}
 	if *shard != "" {
 		var i, n int
@@ -130,7 +136,7 @@ func runCertify(args []string, stdout, stderr io.Writer) int {
 	if err := certificates.WriteFile(*out, res.Certificate); err != nil {
 		return fail("%v", err)
 	}
-	bound := res.Certificate.Relaxation.Claim.Bound
+	bound := res.Certificate.Relaxation.Claim.Bound.String()
 	if *asJSON {
 		// bound is proved (a decimal string); candidate (the float estimate
 		// the search reached), cells, seconds, file and sha256 are

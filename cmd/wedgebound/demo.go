@@ -138,7 +138,7 @@ func runDemo(args []string, stdout, stderr io.Writer) int {
 
 	// (b) Certify with one exponential profile.
 	bar := newProgress(stderr, *quiet)
-	res, err := relaxation.Run(relaxation.Config{Problem: p, Terms: []certificates.Term{{Kind: "exp", Params: map[string]string{"k": plan.k}}}, Margin: plan.margin, Workers: *workers, Work: bar.work})
+	res, err := relaxation.Run(relaxation.Config{Problem: p, Terms: []certificates.Term{{Kind: "exp", Params: map[string]certificates.Decimal{"k": certificates.MustDecimal(plan.k)}}}, Margin: plan.margin, Workers: *workers, Work: bar.work})
 	bar.done()
 	if err != nil {
 		return fail(1, "certify: %v", err)

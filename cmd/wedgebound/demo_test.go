@@ -104,13 +104,13 @@ func checkTour(t *testing.T, dir, stdout string, plan demoPlan) {
 		t.Fatal(err)
 	}
 	r := c.Relaxation
-	if r.Shard != nil || len(r.Terms) != 1 || r.Terms[0].Params["k"] != plan.k {
+	if r.Shard != nil || len(r.Terms) != 1 || r.Terms[0].Params["k"].String() != plan.k {
 		t.Errorf("certificate terms %+v", r.Terms)
 	}
-	if ratOfString(r.Claim.Bound).Cmp(ratOfString(publishedBackflow)) <= 0 {
+	if ratOfString(r.Claim.Bound.String()).Cmp(ratOfString(publishedBackflow)) <= 0 {
 		t.Errorf("bound %s does not lie above the published estimate %s", r.Claim.Bound, publishedBackflow)
 	}
-	if !strings.Contains(readme, r.Claim.Bound) || !strings.Contains(readme, c.SHA256) {
+	if !strings.Contains(readme, r.Claim.Bound.String()) || !strings.Contains(readme, c.SHA256) {
 		t.Error("README.txt does not state the bound and the hash")
 	}
 
@@ -126,7 +126,7 @@ func checkTour(t *testing.T, dir, stdout string, plan demoPlan) {
 	}
 
 	_, rows := parseTable(t, read(demoReportMD))
-	if len(rows) != 2 || rows[0][5] != c.SHA256[:12] || rows[0][2] != "-inf spec <= "+r.Claim.Bound || !strings.HasPrefix(rows[1][0], "finite strip") {
+	if len(rows) != 2 || rows[0][5] != c.SHA256[:12] || rows[0][2] != "-inf spec <= "+r.Claim.Bound.String() || !strings.HasPrefix(rows[1][0], "finite strip") {
 		t.Errorf("report.md rows %q", rows)
 	}
 	txt := strings.Join(strings.Fields(read(demoReportText)), " ")
@@ -144,7 +144,7 @@ func checkTour(t *testing.T, dir, stdout string, plan demoPlan) {
 		t.Fatalf("%s is not a strip-bracket certificate: %v", demoStripFile(plan.alpha), err)
 	}
 	sj := sc.Strip
-	lo, hi := ratOfString(sj.Advantage.Lower), ratOfString(sj.Advantage.Upper)
+	lo, hi := ratOfString(sj.Advantage.Lower.String()), ratOfString(sj.Advantage.Upper.String())
 	if lo == nil || hi == nil || lo.Cmp(hi) > 0 || lo.Cmp(ratOfString(publishedBackflow)) >= 0 || lo.Sign() <= 0 {
 		t.Errorf("strip advantage bracket [%s, %s]", sj.Advantage.Lower, sj.Advantage.Upper)
 	}

@@ -130,11 +130,11 @@ func runFlight(args []string, stdout, stderr io.Writer) int {
 	if *asJSON {
 		var j flightJSON
 		j.Stages = plan.Stages
-		j.Reduction.TimeOverMass = flight.RatText(red.TimeOverMass)
+		j.Reduction.TimeOverMass = certificates.FractionText(red.TimeOverMass)
 		j.Reduction.Alpha = red.AlphaText()
-		j.Reduction.Shift = flight.RatText(red.Shift)
-		j.Reduction.Target = flight.RatText(red.Target)
-		j.Reduction.ShiftedTarget = flight.RatText(red.ShiftedTarget)
+		j.Reduction.Shift = certificates.FractionText(red.Shift)
+		j.Reduction.Target = certificates.FractionText(red.Target)
+		j.Reduction.ShiftedTarget = certificates.FractionText(red.ShiftedTarget)
 		j.Physical = red.Physical
 		j.Advantage, j.Deficit, j.Strip = adv, def, res.Strip
 		b, err := json.MarshalIndent(j, "", "  ")
@@ -150,10 +150,10 @@ func runFlight(args []string, stdout, stderr io.Writer) int {
 		unit, tmu = " m", " s/kg"
 	}
 	fmt.Fprintf(stdout, "%d stages (kicks at stage ends; momentum continuous at mass changes)\n", len(plan.Stages))
-	fmt.Fprintf(stdout, "time over mass T = sum t_k/m_k = %s%s\n", flight.RatText(red.TimeOverMass), tmu)
+	fmt.Fprintf(stdout, "time over mass T = sum t_k/m_k = %s%s\n", certificates.FractionText(red.TimeOverMass), tmu)
 	fmt.Fprintf(stdout, "effective alpha = L^2/(hbar T) = %s in [%s, %s]\n", red.AlphaText(), res.Strip.Alpha.Lower, res.Strip.Alpha.Upper)
 	fmt.Fprintf(stdout, "final position = x0 + T p0 + %s%s: target %s%s acts as the single-flight target %s%s\n",
-		flight.RatText(red.Shift), unit, flight.RatText(red.Target), unit, flight.RatText(red.ShiftedTarget), unit)
+		certificates.FractionText(red.Shift), unit, certificates.FractionText(red.Target), unit, certificates.FractionText(red.ShiftedTarget), unit)
 	fmt.Fprintf(stdout, "advantage in [%s, %s] (over the best classical particle with the same initial momentum distribution)\n", adv.Lower, adv.Upper)
 	fmt.Fprintf(stdout, "deficit lambda_max in [%s, %s]\n", def.Lower, def.Upper)
 	fmt.Fprintf(stdout, "(strip basis size %d, %d Gauss nodes per variable)\n", res.Strip.BasisSize, res.Strip.QuadratureNodes)

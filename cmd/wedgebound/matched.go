@@ -91,7 +91,7 @@ func runMatched(args []string, stdout, stderr io.Writer) int {
 		}
 	}
 	if *asJSON {
-		j := matchedJSON{Alpha: m.Alpha, Lower: m.Lower, Upper: m.Upper, WitnessV: m.Witness.V, Cells: len(m.Cells), Statement: m.Statement}
+		j := matchedJSON{Alpha: m.Alpha, Lower: m.Lower.String(), Upper: m.Upper.String(), WitnessV: m.Witness.V.String(), Cells: len(m.Cells), Statement: m.Statement}
 		b, err := json.MarshalIndent(j, "", "  ")
 		if err != nil {
 			fmt.Fprintf(stderr, "wedgebound matched: %v\n", err)

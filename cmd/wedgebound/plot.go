@@ -72,7 +72,7 @@ func runPlot(args []string, stdout, stderr io.Writer) int {
 }
 
 // ratF is a validated decimal as the nearest float64 (for drawing only).
-func ratF(s string) float64 {
+func ratF(s exact) float64 {
 	f, _ := rat(s).Float64()
 	return f
 }

@@ -57,7 +57,7 @@ func TestPlotCertificate(t *testing.T) {
 		t.Fatal(err)
 	}
 	m := regexp.MustCompile(`(\d+) recorded cells in view \(of (\d+)\)`).FindSubmatch(b)
-	if m == nil || string(m[2]) != itoa(len(c.Relaxation.Cover)) || !bytes.Contains(b, []byte("-"+c.Relaxation.Claim.Bound)) {
+	if m == nil || string(m[2]) != itoa(len(c.Relaxation.Cover)) || !bytes.Contains(b, []byte("-"+c.Relaxation.Claim.Bound.String())) {
 		t.Errorf("legend does not count the cells or state the bound %s", c.Relaxation.Claim.Bound)
 	}
 	for _, args := range [][]string{

@@ -80,7 +80,11 @@ func runPrecession(args []string, stdout, stderr io.Writer) int {
 		return 1
 	}
 	if *out != "" {
-		if err := certificates.WriteFile(*out, res.Certificate()); err != nil {
+		c, err := res.Certificate()
+		if err == nil {
+			err = certificates.WriteFile(*out, c)
+		}
+		if err != nil {
 			fmt.Fprintf(stderr, "wedgebound precession: %v\n", err)
 			return 2
 		}

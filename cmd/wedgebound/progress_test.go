@@ -19,7 +19,7 @@ import (
 func TestCertifyProgressCountsCells(t *testing.T) {
 	var last certify.CoverStatus
 	stages := map[string]bool{}
-	res, err := relaxation.Run(relaxation.Config{Problem: regions.Presets["backflow"], Terms: []certificates.Term{{Kind: "exp", Params: map[string]string{"k": "150"}, Weight: "8.46"}},
+	res, err := relaxation.Run(relaxation.Config{Problem: regions.Presets["backflow"], Terms: []certificates.Term{{Kind: "exp", Params: map[string]certificates.Decimal{"k": certificates.MustDecimal("150")}, Weight: certificates.MustDecimal("8.46")}},
 		Work: func(w relaxation.Work) {
 			stages[w.Stage] = true
 			if w.Cover != nil {

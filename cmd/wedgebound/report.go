@@ -183,14 +183,14 @@ func renderReport(format string, standalone bool, items []reportItem) string {
 
 func oneLineText(s string) string { return strings.Join(strings.Fields(s), " ") }
 
-// rat parses a field that ReadFile has already validated.
-func rat(s string) *big.Rat {
-	r, err := certificates.Frac(s, "field")
-	if err != nil {
-		panic("report: unvalidated number " + s)
-	}
-	return r
+// exact is a number of the schema, read and validated by ReadFile.
+type exact interface {
+	Rat() *big.Rat
+	String() string
 }
+
+// rat is the exact value of a validated number.
+func rat(n exact) *big.Rat { return n.Rat() }
 
 // ---- checks on the recorded numbers ----
 
@@ -207,18 +207,15 @@ func (it reportItem) consistent() error {
 		return stripConsistent(it.strip)
 	}
 	r := it.rel
-	thr, ok := threshold(r.Normal)
-	recorded := r.Normal.Threshold
-	switch {
-	case !ok && recorded != certificates.NoThreshold:
-		return fmt.Errorf("the recorded threshold is %s, but a b = 0 < d leaves no admissible profile (threshold %s)", recorded, certificates.NoThreshold)
-	case !ok && len(r.Terms) > 0:
+	if err := r.Normal.CheckThreshold(); err != nil {
+		return err
+	}
+	thr, ok := r.Normal.Admissible()
+	if !ok && len(r.Terms) > 0 {
 		return fmt.Errorf("a b = 0 < d leaves no room for profiles, yet the certificate has %d terms", len(r.Terms))
-	case ok && (recorded == certificates.NoThreshold || thr.Cmp(rat(recorded)) != 0):
-		return fmt.Errorf("the recorded threshold %s is not d^2/(4ab) = %s", recorded, regions.RatString(thr))
 	}
 	for i, t := range r.Terms {
-		term, err := regions.NewTerm(interval.F{}, t.Kind, t.Params)
+		term, err := regions.NewTerm(interval.F{}, t.Kind, t.ParamText())
 		if err != nil {
 			return fmt.Errorf("term %d: %v", i+1, err)
 		}
@@ -226,33 +223,7 @@ func (it reportItem) consistent() error {
 			return fmt.Errorf("term %d: %v: the relaxation is not admissible", i+1, err)
 		}
 	}
-	bound := rat(r.Claim.Bound)
-	supports := func(v string, lowerEnd bool) bool {
-		x := rat(v)
-		if r.Claim.Edge == "upper" {
-			return lowerEnd || x.Cmp(bound) <= 0
-		}
-		return !lowerEnd || x.Cmp(new(big.Rat).Neg(bound)) >= 0
-	}
-	for i, c := range r.Cover {
-		if !supports(c.EigLower, true) || !supports(c.EigUpper, false) {
-			return fmt.Errorf("cover cell %d [%s, %s] records an enclosure [%s, %s] that does not support the claimed bound %s", i+1, c.Lo, c.Hi, c.EigLower, c.EigUpper, r.Claim.Bound)
-		}
-	}
-	for _, t := range []struct {
-		name string
-		t    certificates.Tail
-	}{{"tail_below", r.Below}, {"tail_above", r.Above}} {
-		if !supports(t.t.Bound, r.Claim.Edge != "upper") {
-			return fmt.Errorf("%s records %s, which does not support the claimed bound %s", t.name, t.t.Bound, r.Claim.Bound)
-		}
-	}
-	return nil
-}
-
-// threshold returns d^2/(4ab) of the recorded normal form (regions.Threshold).
-func threshold(n certificates.NormalForm) (*big.Rat, bool) {
-	return regions.Threshold(rat(n.A), rat(n.B), rat(n.D))
+	return r.SupportsClaim()
 }
 
 // backflowEquivalent reports d = 0 < a, b: the squeeze (x, p) -> (l x, p/l)
@@ -267,7 +238,7 @@ func backflowEquivalent(n certificates.NormalForm) bool {
 // presetGeometry names the preset whose wedge and half-plane p has exactly
 // (rays in either order), or "".
 func presetGeometry(p certificates.Problem) string {
-	eq := func(s string, n regions.Number) bool { return rat(s).Cmp(n.Rat()) == 0 }
+	eq := func(s certificates.Fraction, n regions.Number) bool { return rat(s).Cmp(n.Rat()) == 0 }
 	for _, name := range regions.PresetNames() {
 		q := regions.Presets[name]
 		same := eq(p.Vertex[0], q.Vertex[0]) && eq(p.Vertex[1], q.Vertex[1]) &&
@@ -282,10 +253,10 @@ func presetGeometry(p certificates.Problem) string {
 }
 
 // num writes a validated number in canonical form (decimal or p/q).
-func num(s string) string { return regions.RatString(rat(s)) }
+func num(s exact) string { return certificates.FractionText(rat(s)) }
 
 // pair writes (x, p).
-func pair(a, b string) string { return "(" + num(a) + ", " + num(b) + ")" }
+func pair(a, b exact) string { return "(" + num(a) + ", " + num(b) + ")" }
 
 // linear writes c1 x + c2 p (terms with coefficient 0 left out).
 func linear(c1, c2 *big.Rat) string {
@@ -402,7 +373,7 @@ func familyParts(ts []certificates.Term, kind, key, val func(string) string, tim
 		var vals []string
 		if len(keys) == 1 {
 			for _, t := range g.terms {
-				vals = append(vals, val(t.Params[keys[0]]))
+				vals = append(vals, val(t.Params[keys[0]].String()))
 			}
 			parts = append(parts, fmt.Sprintf("%s %s%d (%s = %s)", kind(g.kind), times, len(g.terms), key(keys[0]), strings.Join(vals, ", ")))
 			continue
@@ -411,7 +382,7 @@ func familyParts(ts []certificates.Term, kind, key, val func(string) string, tim
 			var kv []string
 			for _, k := range keys {
 				if v, ok := t.Params[k]; ok {
-					kv = append(kv, key(k)+" = "+val(v))
+					kv = append(kv, key(k)+" = "+val(v.String()))
 				}
 			}
 			vals = append(vals, strings.Join(kv, ", "))
@@ -451,9 +422,9 @@ func boundText(r *certificates.Relaxation) string {
 		return p + ", no claim on its own"
 	}
 	if r.Claim.Edge == "upper" {
-		return "sup spec <= " + r.Claim.Bound
+		return "sup spec <= " + r.Claim.Bound.String()
 	}
-	return "-inf spec <= " + r.Claim.Bound
+	return "-inf spec <= " + r.Claim.Bound.String()
 }
 
 func boundLaTeX(r *certificates.Relaxation) string {
@@ -461,16 +432,16 @@ func boundLaTeX(r *certificates.Relaxation) string {
 		return texEscape(p + ", no claim on its own")
 	}
 	if r.Claim.Edge == "upper" {
-		return "$\\sup\\sigma \\le " + texNumber(r.Claim.Bound) + "$"
+		return "$\\sup\\sigma \\le " + texNumber(r.Claim.Bound.String()) + "$"
 	}
-	return "$-\\inf\\sigma \\le " + texNumber(r.Claim.Bound) + "$"
+	return "$-\\inf\\sigma \\le " + texNumber(r.Claim.Bound.String()) + "$"
 }
 
 // budgetEntry is one recorded error term.
 type budgetEntry struct{ name, value string }
 
 func budgetEntries(b certificates.Budget) []budgetEntry {
-	return []budgetEntry{{"quadrature", b.Quadrature}, {"truncation", b.Truncation}, {"tail |B|", b.Tails}, {"rounding", b.Rounding}}
+	return []budgetEntry{{"quadrature", b.Quadrature.String()}, {"truncation", b.Truncation.String()}, {"tail |B|", b.Tails.String()}, {"rounding", b.Rounding.String()}}
 }
 
 // upDigits rounds a non-negative rational up to n significant digits and
@@ -520,7 +491,11 @@ func upDigits(v *big.Rat, n int) (m string, e int, ok bool) {
 // digits (so it stays an upper bound): as recorded when it is a short plain
 // decimal in [0.001, 1000), else as m e k. sci formats the scientific form.
 func budgetValue(s string, sci func(mant string, exp int) string) string {
-	v := rat(s)
+	d, err := certificates.ParseDecimal(s)
+	if err != nil {
+		return s // not a recorded decimal: shown as it is
+	}
+	v := d.Rat()
 	if v.Sign() == 0 {
 		return "0"
 	}
@@ -822,7 +797,7 @@ func writeSummary(b *strings.Builder, it reportItem) {
 			}
 			sort.Strings(keys)
 			for _, k := range keys {
-				kv = append(kv, k+" = "+t.Params[k])
+				kv = append(kv, k+" = "+t.Params[k].String())
 			}
 			form := ""
 			if t.Kind == "exp" {
@@ -832,7 +807,7 @@ func writeSummary(b *strings.Builder, it reportItem) {
 		}
 	}
 	adm := "A point (-t, -u/t) of quadrant III, t > 0, lies outside H' for every t exactly when 2 sqrt(a b u) >= d, "
-	if u, ok := threshold(n); ok {
+	if u, ok := n.Admissible(); ok {
 		adm += fmt.Sprintf("so the free part of quadrant III is xp >= d^2/(4ab) = %s (the recorded threshold, recomputed here from a, b, d).", regions.RatString(u))
 	} else {
 		adm += "so with a b = 0 < d no hyperbola xp = u of quadrant III is free and no profile is admissible (recorded threshold none)."
@@ -876,7 +851,7 @@ func writeSummary(b *strings.Builder, it reportItem) {
 // for edge lower, bound for edge upper.
 func boundSigned(r *certificates.Relaxation) string {
 	if r.Claim.Edge == "upper" {
-		return r.Claim.Bound
+		return r.Claim.Bound.String()
 	}
 	return regions.RatString(new(big.Rat).Neg(rat(r.Claim.Bound)))
 }

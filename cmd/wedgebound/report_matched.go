@@ -40,7 +40,7 @@ func readBracketItem(path string) (bracketItem, bool, error) {
 
 func matchedItem(path string, c *certificates.Certificate) bracketItem {
 	m := c.Matched
-	return bracketItem{file: path, cert: c, what: "matched advantage M(alpha)", alpha: m.Alpha, lower: m.Lower, upper: m.Upper,
+	return bracketItem{file: path, cert: c, what: "matched advantage M(alpha)", alpha: m.Alpha, lower: m.Lower.String(), upper: m.Upper.String(),
 		notes: fmt.Sprintf("The lower end is the Rayleigh quotient (at least %s) of a witness state with %d coefficients at the threshold v = %s; "+
 			"the upper end bounds the top eigenvalue of C_lo - 1[x > hi] on each of %d cells covering v in [-1, 0] "+
 			"(the rival matches position and momentum distributions in its best coupling).",
@@ -57,12 +57,12 @@ func writeBrackets(b *strings.Builder, format string, items []bracketItem) {
 		b.WriteString("| certificate | quantity | alpha | lower | upper |\n|---|---|---|---|---|\n")
 		for _, it := range items {
 			fmt.Fprintf(b, "| %s (%s) | %s | %s | %s | %s |\n", mdEscape(it.file), hashPrefix(it.cert), mdEscape(it.what),
-				mdEscape(it.alpha.Value), it.lower, it.upper)
+				mdEscape(it.alpha.Value.String()), it.lower, it.upper)
 		}
 	case formatLaTeX:
 		b.WriteString("\\begin{tabular}{llll}\n\\hline\nquantity & $\\alpha$ & lower & upper \\\\\n\\hline\n")
 		for _, it := range items {
-			fmt.Fprintf(b, "%s & %s & %s & %s \\\\\n", texEscape(it.what), texEscape(it.alpha.Value), texNumber(it.lower), texNumber(it.upper))
+			fmt.Fprintf(b, "%s & %s & %s & %s \\\\\n", texEscape(it.what), texEscape(it.alpha.Value.String()), texNumber(it.lower), texNumber(it.upper))
 		}
 		b.WriteString("\\hline\n\\end{tabular}\n")
 	default:
@@ -71,8 +71,8 @@ func writeBrackets(b *strings.Builder, format string, items []bracketItem) {
 				b.WriteString("\n")
 			}
 			fmt.Fprintf(b, "%s: certificate %s (kind %s), sha256 %s.\n", it.file, hashPrefix(it.cert), it.cert.Kind, it.cert.SHA256)
-			a := it.alpha.Value
-			if it.alpha.Lower != it.alpha.Upper {
+			a := it.alpha.Value.String()
+			if it.alpha.Lower.String() != it.alpha.Upper.String() {
 				a += fmt.Sprintf(" (in [%s, %s])", it.alpha.Lower, it.alpha.Upper)
 			}
 			wrap(b, "  ", fmt.Sprintf("Claim: the %s at alpha = %s lies in [%s, %s].", it.what, a, it.lower, it.upper), 78)

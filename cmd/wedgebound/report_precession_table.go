@@ -35,7 +35,7 @@ func precessionBasisText(p *certificates.Precession) string {
 }
 
 func precessionBudget(p *certificates.Precession) []budgetEntry {
-	return []budgetEntry{{"tail_h", p.Errors.TailH}, {"margin", p.Errors.Margin}, {"matvec", p.Errors.MatVecError}}
+	return []budgetEntry{{"tail_h", p.Errors.TailH.String()}, {"margin", p.Errors.Margin.String()}, {"matvec", p.Errors.MatVecError.String()}}
 }
 
 func precessionBudgetText(p *certificates.Precession) string {
@@ -63,10 +63,10 @@ func precessionCells(it reportItem, latex bool) []string {
 	if latex {
 		rr := "\\raggedright "
 		return []string{rr + "three-time precession constant $P_3$", rr + texEscape(precessionBasisText(p)),
-			rr + "$P_3 \\in [" + texNumber(p.Lower) + ", " + texNumber(p.Upper) + "]$", rr + precessionBudgetLaTeX(p),
+			rr + "$P_3 \\in [" + texNumber(p.Lower.String()) + ", " + texNumber(p.Upper.String()) + "]$", rr + precessionBudgetLaTeX(p),
 			precessionPrecision, "\\texttt{" + texEscape(hashPrefix(it.cert)) + "}"}
 	}
-	return []string{"three-time precession constant P3", precessionBasisText(p), "P3 in [" + p.Lower + ", " + p.Upper + "]",
+	return []string{"three-time precession constant P3", precessionBasisText(p), "P3 in [" + p.Lower.String() + ", " + p.Upper.String() + "]",
 		precessionBudgetText(p), precessionPrecision, hashPrefix(it.cert)}
 }
 

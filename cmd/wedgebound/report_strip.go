@@ -40,7 +40,7 @@ func stripConsistent(s *certificates.Strip) error {
 	neg := func(x *big.Rat) *big.Rat { return new(big.Rat).Neg(x) }
 	checks := []struct {
 		name      string
-		have      string
+		have      certificates.Decimal
 		atMost    bool // have <= limit, else have >= limit
 		limit     *big.Rat
 		limitText string
@@ -70,7 +70,7 @@ func stripAlphaText(s *certificates.Strip) string {
 	if a.Units != nil {
 		return fmt.Sprintf("%s in [%s, %s] (m = %s, L = %s, t = %s)", a.Value, a.Lower, a.Upper, a.Units.Mass, a.Units.Length, a.Units.Time)
 	}
-	return a.Value
+	return a.Value.String()
 }
 
 // stripProblemShort is the index table's problem cell.
@@ -81,13 +81,13 @@ func stripProblemShort(s *certificates.Strip) string {
 func stripProblemLaTeX(s *certificates.Strip) string {
 	a := s.Alpha
 	if a.Units != nil {
-		return "finite strip, $\\alpha \\in [" + texNumber(a.Lower) + ", " + texNumber(a.Upper) + "]$ (" + texEscape(a.Units.Mass+", "+a.Units.Length+", "+a.Units.Time) + ")"
+		return "finite strip, $\\alpha \\in [" + texNumber(a.Lower.String()) + ", " + texNumber(a.Upper.String()) + "]$ (" + texEscape(a.Units.Mass+", "+a.Units.Length+", "+a.Units.Time) + ")"
 	}
 	v := a.Value
-	if strings.HasPrefix(v, certificates.StripTwoPiPrefix) {
-		return "finite strip, $\\alpha = 2\\pi\\cdot " + texNumber(strings.TrimPrefix(v, certificates.StripTwoPiPrefix)) + "$"
+	if strings.HasPrefix(v.String(), certificates.StripTwoPiPrefix) {
+		return "finite strip, $\\alpha = 2\\pi\\cdot " + texNumber(strings.TrimPrefix(v.String(), certificates.StripTwoPiPrefix)) + "$"
 	}
-	return "finite strip, $\\alpha = " + texNumber(v) + "$"
+	return "finite strip, $\\alpha = " + texNumber(v.String()) + "$"
 }
 
 // stripBasisText is the table's "profiles" cell: the witness basis.
@@ -105,12 +105,12 @@ func stripBoundText(s *certificates.Strip) string {
 
 func stripBoundLaTeX(s *certificates.Strip) string {
 	return fmt.Sprintf("$A(\\alpha) \\in [%s, %s]$\\newline $\\sup\\sigma(K_\\alpha) \\in [%s, %s]$",
-		texNumber(s.Advantage.Lower), texNumber(s.Advantage.Upper), texNumber(s.Deficit.Lower), texNumber(s.Deficit.Upper))
+		texNumber(s.Advantage.Lower.String()), texNumber(s.Advantage.Upper.String()), texNumber(s.Deficit.Lower.String()), texNumber(s.Deficit.Upper.String()))
 }
 
 // stripBudget lists the two error terms the brackets use.
 func stripBudget(s *certificates.Strip) []budgetEntry {
-	return []budgetEntry{{"alpha rounding", s.Errors.AlphaRounding}, {"discarded part", s.Errors.DiscardedPart}}
+	return []budgetEntry{{"alpha rounding", s.Errors.AlphaRounding.String()}, {"discarded part", s.Errors.DiscardedPart.String()}}
 }
 
 func stripBudgetText(s *certificates.Strip) string {

@@ -86,7 +86,7 @@ func TestReportStripInconsistent(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	c.Strip.Advantage.Lower = "0.0294571885" // above -(witness Rayleigh upper)
+	c.Strip.Advantage.Lower = certificates.MustDecimal("0.0294571885") // above -(witness Rayleigh upper)
 	p := filepath.Join(t.TempDir(), "bad.json")
 	if err := certificates.WriteFile(p, c); err != nil {
 		t.Fatal(err)

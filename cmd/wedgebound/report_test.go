@@ -272,7 +272,7 @@ func TestReportPartial(t *testing.T) {
 func TestReportNoThreshold(t *testing.T) {
 	dir := t.TempDir()
 	noRoom := func(r *certificates.Relaxation) {
-		r.Normal.A, r.Normal.D, r.Normal.Threshold = "0", "1", certificates.NoThreshold
+		r.Normal.A, r.Normal.D, r.Normal.Threshold = certificates.MustFraction("0"), certificates.MustFraction("1"), certificates.MustThreshold(certificates.NoThreshold)
 	}
 	bare := writeVariant(t, dir, "bare.json", func(r *certificates.Relaxation) { noRoom(r); r.Terms = nil })
 	code, out, errs := report(bare)
@@ -293,7 +293,7 @@ func TestReportNoThreshold(t *testing.T) {
 	if code, _, errs := report(withTerms); code != 1 || !strings.Contains(errs, "no room for profiles") {
 		t.Errorf("terms without room: exit %d, %q", code, errs)
 	}
-	wrong := writeVariant(t, dir, "wrong.json", func(r *certificates.Relaxation) { r.Normal.Threshold = "0.5" })
+	wrong := writeVariant(t, dir, "wrong.json", func(r *certificates.Relaxation) { r.Normal.Threshold = certificates.MustThreshold("0.5") })
 	if code, _, errs := report(wrong); code != 1 || !strings.Contains(errs, "is not d^2/(4ab) = 0") {
 		t.Errorf("wrong threshold: exit %d, %q", code, errs)
 	}
@@ -360,7 +360,7 @@ func TestReportLaTeXCompiles(t *testing.T) {
 	dir := t.TempDir()
 	odd := writeVariant(t, dir, "odd.json", func(r *certificates.Relaxation) {
 		r.Terms[0].Kind = `e_x&p%$#{}~^\<>|"`
-		r.Terms[1].Params = map[string]string{"k_1&": "0.79", "b": "1e-5"}
+		r.Terms[1].Params = map[string]certificates.Decimal{"k_1&": certificates.MustDecimal("0.79"), "b": certificates.MustDecimal("0.00001")}
 		asShard(r)
 	})
 	code, frag, errs := report("--format", "latex", shippedCert, odd)
@@ -385,7 +385,7 @@ func TestReportBadInput(t *testing.T) {
 	os.WriteFile(garbage, []byte("{not json"), 0o644)
 	// A sealed certificate whose claim its own recorded cells do not support.
 	overclaim := writeVariant(t, dir, "overclaim.json", func(r *certificates.Relaxation) {
-		r.Claim.Bound = "0.03"
+		r.Claim.Bound = certificates.MustDecimal("0.03")
 		r.Claim.Statement = "overclaimed"
 	})
 	for _, tc := range []struct {

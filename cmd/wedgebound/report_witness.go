@@ -50,7 +50,7 @@ func widthRange(w *certificates.Witness) (string, string) {
 			hi = f.Width
 		}
 	}
-	return lo, hi
+	return lo.String(), hi.String()
 }
 
 func maxPower(w *certificates.Witness) int {

@@ -25,7 +25,7 @@ func TestStripOutWritesCertificate(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	if c.Kind != certificates.KindStrip || c.Strip.Alpha.Value != "2" {
+	if c.Kind != certificates.KindStrip || c.Strip.Alpha.Value.String() != "2" {
 		t.Fatalf("kind %q alpha %q", c.Kind, c.Strip.Alpha.Value)
 	}
 	r, err := recheck.Verify(c, recheck.Options{})
@@ -67,14 +67,14 @@ func TestSweepBoundCertificate(t *testing.T) {
 	if code != 0 {
 		t.Fatalf("exit %d: %s", code, errs)
 	}
-	if !strings.Contains(out, "certified upper bound read from "+shippedBackflow+": c_bm <= "+bc.Relaxation.Claim.Bound) || !strings.Contains(out, "not verified") {
+	if !strings.Contains(out, "certified upper bound read from "+shippedBackflow+": c_bm <= "+bc.Relaxation.Claim.Bound.String()) || !strings.Contains(out, "not verified") {
 		t.Errorf("stdout: %q", out)
 	}
 	img, err := os.ReadFile(s)
 	if err != nil {
 		t.Fatal(err)
 	}
-	for _, want := range []string{"c_bm &lt;= " + bc.Relaxation.Claim.Bound, "backflow.json, read, not verified", "Bracken"} {
+	for _, want := range []string{"c_bm &lt;= " + bc.Relaxation.Claim.Bound.String(), "backflow.json, read, not verified", "Bracken"} {
 		if !bytes.Contains(img, []byte(want)) && !bytes.Contains(img, []byte(strings.ReplaceAll(want, "&lt;", "<"))) {
 			t.Errorf("SVG lacks %q", want)
 		}
@@ -110,8 +110,8 @@ func TestSweepBoundCertificateRejects(t *testing.T) {
 		{"upper edge", reseal("upper.json", func(c *certificates.Certificate) {
 			c.Relaxation.Problem.Edge, c.Relaxation.Claim.Edge = "upper", "upper"
 		}), "needs edge lower"},
-		{"vertex inside", reseal("inside.json", func(c *certificates.Certificate) { c.Relaxation.Normal.D = "1/2" }), "not the backflow geometry"},
-		{"edge on the boundary", reseal("boundary.json", func(c *certificates.Certificate) { c.Relaxation.Normal.A = "0" }), "not the backflow geometry"},
+		{"vertex inside", reseal("inside.json", func(c *certificates.Certificate) { c.Relaxation.Normal.D = certificates.MustFraction("1/2") }), "not the backflow geometry"},
+		{"edge on the boundary", reseal("boundary.json", func(c *certificates.Certificate) { c.Relaxation.Normal.A = certificates.MustFraction("0") }), "not the backflow geometry"},
 		{"stale hash", stale, "stale"},
 		{"missing", filepath.Join(dir, "none.json"), "no such file"},
 	} {
@@ -121,7 +121,7 @@ func TestSweepBoundCertificateRejects(t *testing.T) {
 		}
 	}
 	// A claimed bound below the certified lower bound is a contradiction.
-	low := reseal("low.json", func(c *certificates.Certificate) { c.Relaxation.Claim.Bound = "0.001" })
+	low := reseal("low.json", func(c *certificates.Certificate) { c.Relaxation.Claim.Bound = certificates.MustDecimal("0.001") })
 	code, _, errs := runCmd(sweepCmd, "--from", "2", "--to", "2", "--points", "1", "--quiet", "--bound-certificate", low)
 	if code != 1 || !strings.Contains(errs, "one of the two is wrong") {
 		t.Errorf("contradiction: exit %d, stderr %q", code, errs)

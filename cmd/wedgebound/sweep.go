@@ -137,7 +137,7 @@ func runSweep(args []string, stdout, stderr io.Writer) int {
 				fmt.Fprintf(stderr, "wedgebound sweep: alpha %s: %v\n", s, err)
 				return 1
 			}
-			pt.mLower, pt.mUpper = mc.Matched.Lower, mc.Matched.Upper
+			pt.mLower, pt.mUpper = mc.Matched.Lower.String(), mc.Matched.Upper.String()
 			pt.mLo, _ = strconv.ParseFloat(pt.mLower, 64)
 			pt.mHi, _ = strconv.ParseFloat(pt.mUpper, 64)
 		}
@@ -212,24 +212,16 @@ func readBoundCertificate(path string) (*backflowBound, error) {
 	if rel.Claim.Edge != "lower" || rel.Problem.Edge != "lower" {
 		return nil, fmt.Errorf("%s bounds the %q edge; a bound on the backflow constant needs edge lower", path, rel.Claim.Edge)
 	}
-	a, errA := certificates.Frac(rel.Normal.A, "normal_form.a")
-	b, errB := certificates.Frac(rel.Normal.B, "normal_form.b")
-	d, errD := certificates.Frac(rel.Normal.D, "normal_form.d")
-	if errA != nil || errB != nil || errD != nil {
-		return nil, fmt.Errorf("%s: unreadable normal form", path)
-	}
+	a, b, d := rel.Normal.A.Rat(), rel.Normal.B.Rat(), rel.Normal.D.Rat()
 	if d.Sign() != 0 || new(big.Rat).Mul(a, b).Sign() <= 0 {
 		return nil, fmt.Errorf("%s is not the backflow geometry (its normal form has d = %s, a b = %s; the backflow and projectile problems have d = 0 and a b > 0)", path, rel.Normal.D, new(big.Rat).Mul(a, b).RatString())
 	}
-	v, err := certificates.Dec(rel.Claim.Bound, "claim.bound")
-	if err != nil {
-		return nil, err
-	}
+	v := rel.Claim.Bound.Rat()
 	if v.Sign() <= 0 {
 		return nil, fmt.Errorf("%s claims the bound %s, which is not positive", path, rel.Claim.Bound)
 	}
 	f, _ := new(big.Float).SetMode(big.ToPositiveInf).SetPrec(53).SetRat(v).Float64()
-	return &backflowBound{file: path, bound: rel.Claim.Bound, rat: v, value: f,
+	return &backflowBound{file: path, bound: rel.Claim.Bound.String(), rat: v, value: f,
 		what: "the claim of a halfplane-relaxation certificate for the backflow geometry, which bounds the backflow constant and so A(alpha) for every alpha; read, not verified here: run wedgecheck on it"}, nil
 }
 

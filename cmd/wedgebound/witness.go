@@ -127,9 +127,9 @@ func runWitness(args []string, stdout, stderr io.Writer) int {
 	}
 	w := c.Witness
 	if *asJSON {
-		s := witnessSummary{Problem: "backflow", Bound: r.Bound, Quotient: w.Quotient, Estimate: w.Certifier.Estimate,
+		s := witnessSummary{Problem: "backflow", Bound: r.Bound, Quotient: w.Quotient, Estimate: w.Certifier.Estimate.String(),
 			BasisSize: len(r.Basis), MinWidth: o.MinWidth, MaxWidth: o.MaxWidth, Ratio: o.Ratio, MaxPower: o.MaxPower,
-			Panels: len(r.Proof.Panels), Remainder: w.Errors.Quadrature, Seconds: elapsed.Seconds(), Statement: w.Statement}
+			Panels: len(r.Proof.Panels), Remainder: w.Errors.Quadrature.String(), Seconds: elapsed.Seconds(), Statement: w.Statement}
 		js, _ := json.MarshalIndent(s, "", "  ")
 		fmt.Fprintf(stdout, "%s\n", js)
 		return 0

@@ -57,7 +57,7 @@ func TestWitnessSmallRun(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	if c.Kind != certificates.KindWitness || c.Witness.Bound != s.Bound {
+	if c.Kind != certificates.KindWitness || c.Witness.Bound.String() != s.Bound {
 		t.Errorf("certificate kind %q bound %q", c.Kind, c.Witness.Bound)
 	}
 	data, err := os.ReadFile(csv)

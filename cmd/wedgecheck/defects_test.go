@@ -11,8 +11,8 @@ import (
 func TestPartialCertificateText(t *testing.T) {
 	c := quadrantLower(t)
 	r := c.Relaxation
-	r.Shard = &certificates.Shard{Index: 0, Count: 2, Lo: r.Cover[0].Lo, Hi: "16"}
-	r.Above.From = "16"
+	r.Shard = &certificates.Shard{Index: 0, Count: 2, Lo: r.Cover[0].Lo, Hi: certificates.MustDecimal("16")}
+	r.Above.From = certificates.MustDecimal("16")
 	if err := certificates.Seal(c); err != nil {
 		t.Fatal(err)
 	}

@@ -15,15 +15,15 @@ import (
 // (half-plane p > 0) and the wedge {p > 0, -p < x < 0} (regions package doc).
 func backflowProblem(edge string) certificates.Problem {
 	return certificates.Problem{
-		Vertex:    [2]string{"0", "0"},
-		Rays:      [2][2]string{{"0", "1"}, {"-1", "1"}},
-		Halfplane: certificates.Halfplane{Normal: [2]string{"0", "1"}, Offset: "0"},
+		Vertex:    [2]certificates.Fraction{certificates.MustFraction("0"), certificates.MustFraction("0")},
+		Rays:      [2][2]certificates.Fraction{{certificates.MustFraction("0"), certificates.MustFraction("1")}, {certificates.MustFraction("-1"), certificates.MustFraction("1")}},
+		Halfplane: certificates.Halfplane{Normal: [2]certificates.Fraction{certificates.MustFraction("0"), certificates.MustFraction("1")}, Offset: certificates.MustFraction("0")},
 		Edge:      edge,
 	}
 }
 
 func expTerm(k, w string) certificates.Term {
-	return certificates.Term{Kind: "exp", Params: map[string]string{"k": k}, Weight: w}
+	return certificates.Term{Kind: "exp", Params: map[string]certificates.Decimal{"k": certificates.MustDecimal(k)}, Weight: certificates.MustDecimal(w)}
 }
 
 type built struct {

@@ -18,17 +18,21 @@ func TestExtremeInputs(t *testing.T) {
 		want string
 	}{
 		{"cell beyond |s| = 2^30", func(r *certificates.Relaxation) {
-			r.Cover[len(r.Cover)-1].Hi = "5e9"
-			r.Above.From = "5e9"
+			r.Cover[len(r.Cover)-1].Hi = certificates.MustDecimal("5000000000")
+			r.Above.From = certificates.MustDecimal("5000000000")
 		}, exitFail, "beyond |s| = 2^30"},
-		{"huge weight", func(r *certificates.Relaxation) { r.Terms[0].Weight = "1e300" }, exitFail, "cover["},
-		{"smallest k", func(r *certificates.Relaxation) { r.Terms[0].Params["k"] = "0.000001" }, exitFail, ""},
-		{"largest k", func(r *certificates.Relaxation) { r.Terms[0].Params["k"] = "1000000" }, exitFail, ""},
-		{"k out of range", func(r *certificates.Relaxation) { r.Terms[0].Params["k"] = "1e7" }, exitFail, "outside the supported range"},
-		{"bound huge", func(r *certificates.Relaxation) { r.Claim.Bound = "1e900" }, exitPass, ""},
+		{"huge weight", func(r *certificates.Relaxation) {
+			r.Terms[0].Weight = certificates.MustDecimal("1000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000")
+		}, exitFail, "cover["},
+		{"smallest k", func(r *certificates.Relaxation) { r.Terms[0].Params["k"] = certificates.MustDecimal("0.000001") }, exitFail, ""},
+		{"largest k", func(r *certificates.Relaxation) { r.Terms[0].Params["k"] = certificates.MustDecimal("1000000") }, exitFail, ""},
+		{"k out of range", func(r *certificates.Relaxation) { r.Terms[0].Params["k"] = certificates.MustDecimal("10000000") }, exitFail, "outside the supported range"},
+		{"bound huge", func(r *certificates.Relaxation) {
+			r.Claim.Bound = certificates.MustDecimal("1000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000000")
+		}, exitPass, ""},
 		{"tiny first cell", func(r *certificates.Relaxation) {
 			c0 := r.Cover[0]
-			r.Cover[0].Hi = "-39.99999999999999999999999999999"
+			r.Cover[0].Hi = certificates.MustDecimal("-39.99999999999999999999999999999")
 			r.Cover = append([]certificates.Cell{r.Cover[0]}, append([]certificates.Cell{{Lo: r.Cover[0].Hi, Hi: c0.Hi, EigLower: c0.EigLower, EigUpper: c0.EigUpper}}, r.Cover[1:]...)...)
 		}, exitPass, ""},
 	} {

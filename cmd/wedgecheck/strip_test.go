@@ -63,7 +63,7 @@ func TestAllShippedCertificatesPass(t *testing.T) {
 func TestStripTamperedFiles(t *testing.T) {
 	dir := t.TempDir()
 	c := readShippedStrip(t)
-	c.Strip.Advantage.Lower, c.Strip.Advantage.Upper = "0.0295", "0.03"
+	c.Strip.Advantage.Lower, c.Strip.Advantage.Upper = certificates.MustDecimal("0.0295"), certificates.MustDecimal("0.03")
 	if err := certificates.Seal(c); err != nil {
 		t.Fatal(err)
 	}
@@ -78,7 +78,7 @@ func TestStripTamperedFiles(t *testing.T) {
 		t.Fatal(err)
 	}
 	lo := readShippedStrip(t).Strip.Advantage.Lower
-	edited := bytes.Replace(data, []byte(`"`+lo+`"`), []byte(`"0.0295"`), 1)
+	edited := bytes.Replace(data, []byte(`"`+lo.String()+`"`), []byte(`"0.0295"`), 1)
 	if bytes.Equal(edited, data) {
 		t.Fatal("edit did not apply")
 	}
@@ -100,13 +100,13 @@ func TestStripTamperedFiles(t *testing.T) {
 	}
 
 	c = readShippedStrip(t)
-	c.Strip.Errors.DiscardedPart = "1e-12"
+	c.Strip.Errors.DiscardedPart = certificates.MustDecimal("0.000000000001")
 	if err := certificates.Seal(c); err != nil {
 		t.Fatal(err)
 	}
 	p = writeCert(t, dir, "tail.json", c)
 	code, out = runCheck(t, p)
-	if code != exitFail || !strings.Contains(out, "errors.discarded_part: cannot prove discarded_part 1e-12") {
+	if code != exitFail || !strings.Contains(out, "errors.discarded_part: cannot prove discarded_part 0.000000000001") {
 		t.Errorf("discarded part: exit %d:\n%s", code, out)
 	}
 }

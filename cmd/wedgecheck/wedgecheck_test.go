@@ -79,10 +79,22 @@ func numericLeaves(v any, path string, out *[]string) {
 	case json.Number:
 		*out = append(*out, path)
 	case string:
-		if _, err := certificates.Frac(x, path); err == nil {
+		if _, ok := leafRat(x); ok {
 			*out = append(*out, path)
 		}
 	}
+}
+
+// leafRat reads a numeric leaf of a certificate in any of the schema's
+// number grammars.
+func leafRat(s string) (*big.Rat, bool) {
+	if f, err := certificates.ParseFraction(s); err == nil {
+		return f.Rat(), true
+	}
+	if d, err := certificates.ParseSci(s); err == nil {
+		return d.Rat(), true
+	}
+	return nil, false
 }
 
 // setLeaf replaces the value at path with a different number.
@@ -116,9 +128,9 @@ func mutated(t *testing.T, v any) any {
 	case json.Number:
 		return json.Number(string(x) + "1")
 	case string:
-		r, err := certificates.Frac(x, "leaf")
-		if err != nil {
-			t.Fatal(err)
+		r, ok := leafRat(x)
+		if !ok {
+			t.Fatalf("leaf %q is not a number", x)
 		}
 		r.Mul(r, big.NewRat(3, 2)).Add(r, big.NewRat(1, 8))
 		return r.FloatString(6)
@@ -177,8 +189,8 @@ type mutation struct {
 func cellAt(t *testing.T, r *certificates.Relaxation, s string) int {
 	x, _ := new(big.Rat).SetString(s)
 	for i, c := range r.Cover {
-		lo, _ := new(big.Rat).SetString(c.Lo)
-		hi, _ := new(big.Rat).SetString(c.Hi)
+		lo, _ := new(big.Rat).SetString(c.Lo.String())
+		hi, _ := new(big.Rat).SetString(c.Hi.String())
 		if lo.Cmp(x) <= 0 && x.Cmp(hi) <= 0 {
 			return i
 		}
@@ -193,17 +205,19 @@ func cellAt(t *testing.T, r *certificates.Relaxation, s string) int {
 func TestResealedFalseMutations(t *testing.T) {
 	const sMin = "-0.26"
 	muts := []mutation{
-		{"weight to 0 (bare quadrant, inf spec -0.15594 < -0.06)", func(t *testing.T, r *certificates.Relaxation) { r.Terms[0].Weight = "0" }, exitFail, "the claim is false"},
-		{"weight times 10", func(t *testing.T, r *certificates.Relaxation) { r.Terms[0].Weight = "84.6" }, exitFail, "cover["},
-		{"k to 1.5", func(t *testing.T, r *certificates.Relaxation) { r.Terms[0].Params["k"] = "1.5" }, exitFail, "cover["},
-		{"claimed bound below the true 0.05265", func(t *testing.T, r *certificates.Relaxation) { r.Claim.Bound = "0.05" }, exitFail, "cover["},
+		{"weight to 0 (bare quadrant, inf spec -0.15594 < -0.06)", func(t *testing.T, r *certificates.Relaxation) { r.Terms[0].Weight = certificates.MustDecimal("0") }, exitFail, "the claim is false"},
+		{"weight times 10", func(t *testing.T, r *certificates.Relaxation) { r.Terms[0].Weight = certificates.MustDecimal("84.6") }, exitFail, "cover["},
+		{"k to 1.5", func(t *testing.T, r *certificates.Relaxation) {
+			r.Terms[0].Params["k"] = certificates.MustDecimal("1.5")
+		}, exitFail, "cover["},
+		{"claimed bound below the true 0.05265", func(t *testing.T, r *certificates.Relaxation) { r.Claim.Bound = certificates.MustDecimal("0.05") }, exitFail, "cover["},
 		{"enclosure of the minimum cell raised", func(t *testing.T, r *certificates.Relaxation) {
 			i := cellAt(t, r, sMin)
-			r.Cover[i].EigLower, r.Cover[i].EigUpper = "-0.01", "1"
+			r.Cover[i].EigLower, r.Cover[i].EigUpper = certificates.MustDecimal("-0.01"), certificates.MustDecimal("1")
 		}, exitFail, "recorded enclosure"},
 		{"enclosure of the minimum cell moved above", func(t *testing.T, r *certificates.Relaxation) {
 			i := cellAt(t, r, sMin)
-			r.Cover[i].EigLower, r.Cover[i].EigUpper = "2", "3"
+			r.Cover[i].EigLower, r.Cover[i].EigUpper = certificates.MustDecimal("2"), certificates.MustDecimal("3")
 		}, exitFail, "recorded enclosure"},
 		{"cell boundary moved so that a cell takes in values below its recorded enclosure", func(t *testing.T, r *certificates.Relaxation) {
 			// Cell best+1 is moved to start 1/64 into cell best. The pair is
@@ -218,16 +232,14 @@ func TestResealedFalseMutations(t *testing.T) {
 			best, gap := -1, 0.002
 			var b *big.Rat
 			for i := 0; i+1 < len(r.Cover); i++ {
-				lo, _ := new(big.Rat).SetString(r.Cover[i].Lo)
-				hi, _ := new(big.Rat).SetString(r.Cover[i].Hi)
+				lo, hi := r.Cover[i].Lo.Rat(), r.Cover[i].Hi.Rat()
 				at := new(big.Rat).Add(lo, new(big.Rat).Quo(new(big.Rat).Sub(hi, lo), big.NewRat(64, 1)))
 				at.SetString(at.FloatString(12))
 				p, err := m.Piece(at, at)
 				if err != nil {
 					t.Fatal(err)
 				}
-				next, _ := new(big.Rat).SetString(r.Cover[i+1].EigLower)
-				nf, _ := next.Float64()
+				nf, _ := r.Cover[i+1].EigLower.Rat().Float64()
 				if d := nf - p.Mid.Hi(); d > gap {
 					best, gap, b = i, d, at
 				}
@@ -235,18 +247,20 @@ func TestResealedFalseMutations(t *testing.T) {
 			if best < 0 {
 				t.Fatal("setup: no adjacent cells with a rise of the eigenvalue above the next record")
 			}
-			r.Cover[best].Hi, r.Cover[best+1].Lo = b.FloatString(12), b.FloatString(12)
+			r.Cover[best].Hi, r.Cover[best+1].Lo = certificates.MustDecimal(b.FloatString(12)), certificates.MustDecimal(b.FloatString(12))
 		}, exitFail, "recorded enclosure"},
-		{"tail bound below the claim", func(t *testing.T, r *certificates.Relaxation) { r.Below.Bound = "-0.07" }, exitFail, "tail_below"},
-		{"tail bound above its limit 0", func(t *testing.T, r *certificates.Relaxation) { r.Above.Bound = "0.001" }, exitFail, "tail_above"},
-		{"normal form a", func(t *testing.T, r *certificates.Relaxation) { r.Normal.A = "2" }, exitFail, "normal_form.a"},
-		{"normal form map", func(t *testing.T, r *certificates.Relaxation) { r.Normal.Map[2] = "1" }, exitFail, "normal_form.map[2]"},
-		{"normal form threshold", func(t *testing.T, r *certificates.Relaxation) { r.Normal.Threshold = "1" }, exitFail, "normal_form.threshold"},
-		{"vertex moved into the half-plane", func(t *testing.T, r *certificates.Relaxation) { r.Problem.Vertex[1] = "1" }, exitFail, "normal_form.d"},
-		{"ray changed", func(t *testing.T, r *certificates.Relaxation) { r.Problem.Rays[1][0] = "-2" }, exitFail, "normal_form.map"},
-		{"half-plane offset", func(t *testing.T, r *certificates.Relaxation) { r.Problem.Halfplane.Offset = "-1" }, exitFail, "normal_form.d"},
-		{"one cell end alone (a gap)", func(t *testing.T, r *certificates.Relaxation) { r.Cover[3].Lo = r.Cover[3].Hi[:0] + "-39.9999" }, exitMalformed, "cover["},
-		{"tail start alone", func(t *testing.T, r *certificates.Relaxation) { r.Above.From = "17" }, exitMalformed, "tail_above"},
+		{"tail bound below the claim", func(t *testing.T, r *certificates.Relaxation) { r.Below.Bound = certificates.MustDecimal("-0.07") }, exitFail, "tail_below"},
+		{"tail bound above its limit 0", func(t *testing.T, r *certificates.Relaxation) { r.Above.Bound = certificates.MustDecimal("0.001") }, exitFail, "tail_above"},
+		{"normal form a", func(t *testing.T, r *certificates.Relaxation) { r.Normal.A = certificates.MustFraction("2") }, exitFail, "normal_form.a"},
+		{"normal form map", func(t *testing.T, r *certificates.Relaxation) { r.Normal.Map[2] = certificates.MustFraction("1") }, exitFail, "normal_form.map[2]"},
+		{"normal form threshold", func(t *testing.T, r *certificates.Relaxation) { r.Normal.Threshold = certificates.MustThreshold("1") }, exitFail, "normal_form.threshold"},
+		{"vertex moved into the half-plane", func(t *testing.T, r *certificates.Relaxation) { r.Problem.Vertex[1] = certificates.MustFraction("1") }, exitFail, "normal_form.d"},
+		{"ray changed", func(t *testing.T, r *certificates.Relaxation) { r.Problem.Rays[1][0] = certificates.MustFraction("-2") }, exitFail, "normal_form.map"},
+		{"half-plane offset", func(t *testing.T, r *certificates.Relaxation) {
+			r.Problem.Halfplane.Offset = certificates.MustFraction("-1")
+		}, exitFail, "normal_form.d"},
+		{"one cell end alone (a gap)", func(t *testing.T, r *certificates.Relaxation) { r.Cover[3].Lo = certificates.MustDecimal("-39.9999") }, exitMalformed, "cover["},
+		{"tail start alone", func(t *testing.T, r *certificates.Relaxation) { r.Above.From = certificates.MustDecimal("17") }, exitMalformed, "tail_above"},
 	}
 	// A few recorded enclosures, each moved to where no correct computation
 	// could put it.
@@ -255,7 +269,7 @@ func TestResealedFalseMutations(t *testing.T) {
 			if i >= len(r.Cover) {
 				i = len(r.Cover) - 1
 			}
-			r.Cover[i].EigLower, r.Cover[i].EigUpper = "1.5", "1.75"
+			r.Cover[i].EigLower, r.Cover[i].EigUpper = certificates.MustDecimal("1.5"), certificates.MustDecimal("1.75")
 		}, exitFail, "recorded enclosure"})
 	}
 	dir := t.TempDir()
@@ -279,7 +293,7 @@ func TestResealedHarmlessMutations(t *testing.T) {
 	dir := t.TempDir()
 	for _, edit := range []func(r *certificates.Relaxation){
 		func(r *certificates.Relaxation) { r.PrecisionBits = 64 },
-		func(r *certificates.Relaxation) { r.Budget.Quadrature = "1e-9" },
+		func(r *certificates.Relaxation) { r.Budget.Quadrature = certificates.MustDecimal("0.000000001") },
 	} {
 		c := expLower(t)
 		edit(c.Relaxation)
@@ -304,6 +318,15 @@ func TestBadFiles(t *testing.T) {
 		b, _ := certificates.Encode(c)
 		return b
 	}
+	// text replaces the first occurrence of old in the good file (a number
+	// that does not read fails before the hash is checked).
+	ql := quadrantLower(t)
+	text := func(old, new string) []byte {
+		if !bytes.Contains(good, []byte(old)) {
+			t.Fatalf("pattern %q not in the certificate", old)
+		}
+		return bytes.Replace(good, []byte(old), []byte(new), 1)
+	}
 	schemaV9 := func() []byte {
 		c := quadrantLower(t)
 		c.Schema = "wedgebound/certificate/v9"
@@ -321,28 +344,28 @@ func TestBadFiles(t *testing.T) {
 		{"empty file", nil, exitMalformed, "malformed certificate"},
 		{"not JSON", []byte("PASS\n"), exitMalformed, "malformed certificate"},
 		{"trailing data", append(append([]byte{}, good...), []byte("{}")...), exitMalformed, "trailing data"},
-		{"NaN bound", reseal(func(c *certificates.Certificate) { c.Relaxation.Claim.Bound = "NaN" }), exitMalformed, "claim.bound"},
-		{"NaN enclosure", reseal(func(c *certificates.Certificate) { c.Relaxation.Cover[2].EigUpper = "NaN" }), exitMalformed, "eig_upper"},
-		{"infinite endpoint", reseal(func(c *certificates.Certificate) { c.Relaxation.Cover[0].Lo = "-Inf" }), exitMalformed, "cover[0].lo"},
+		{"NaN bound", text(`"bound": "`+ql.Relaxation.Claim.Bound.String()+`"`, `"bound": "NaN"`), exitMalformed, "claim.bound"},
+		{"NaN enclosure", text(`"eig_upper": "`+ql.Relaxation.Cover[2].EigUpper.String()+`"`, `"eig_upper": "NaN"`), exitMalformed, "eig_upper"},
+		{"infinite endpoint", text(`"lo": "`+ql.Relaxation.Cover[0].Lo.String()+`"`, `"lo": "-Inf"`), exitMalformed, "cover[0].lo"},
 		{"unknown schema version", schemaV9(), exitMalformed, "unknown schema"},
 		{"cover with a gap", reseal(func(c *certificates.Certificate) {
 			r := c.Relaxation
 			r.Cover = append(r.Cover[:5:5], r.Cover[6:]...)
 		}), exitMalformed, "gap in the cover"},
 		{"unknown field", bytes.Replace(good, []byte(`"terms"`), []byte(`"extra": 1, "terms"`), 1), exitMalformed, "unknown field"},
-		{"claimed bound below the proved one", reseal(func(c *certificates.Certificate) { c.Relaxation.Claim.Bound = "0.15" }), exitFail, "the claim is false"},
+		{"claimed bound below the proved one", reseal(func(c *certificates.Certificate) { c.Relaxation.Claim.Bound = certificates.MustDecimal("0.15") }), exitFail, "the claim is false"},
 		{"unknown term kind", reseal(func(c *certificates.Certificate) {
-			c.Relaxation.Terms = []certificates.Term{{Kind: "band", Params: map[string]string{"a": "1", "b": "2"}, Weight: "0.5"}}
+			c.Relaxation.Terms = []certificates.Term{{Kind: "band", Params: map[string]certificates.Decimal{"a": certificates.MustDecimal("1"), "b": certificates.MustDecimal("2")}, Weight: certificates.MustDecimal("0.5")}}
 		}), exitFail, `unknown term kind "band"`},
 		{"unknown exp parameter", reseal(func(c *certificates.Certificate) {
-			c.Relaxation.Terms = []certificates.Term{{Kind: "exp", Params: map[string]string{"q": "1"}, Weight: "0.5"}}
+			c.Relaxation.Terms = []certificates.Term{{Kind: "exp", Params: map[string]certificates.Decimal{"q": certificates.MustDecimal("1")}, Weight: certificates.MustDecimal("0.5")}}
 		}), exitFail, "parameter k"},
 		{"non-positive k", reseal(func(c *certificates.Certificate) {
-			c.Relaxation.Terms = []certificates.Term{{Kind: "exp", Params: map[string]string{"k": "-3"}, Weight: "0.5"}}
+			c.Relaxation.Terms = []certificates.Term{{Kind: "exp", Params: map[string]certificates.Decimal{"k": certificates.MustDecimal("-3")}, Weight: certificates.MustDecimal("0.5")}}
 		}), exitFail, "must be positive"},
 		{"incomplete strip certificate", reseal(func(c *certificates.Certificate) {
-			c.Kind, c.Relaxation, c.Strip = certificates.KindStrip, nil, &certificates.Strip{Alpha: certificates.StripAlpha{Value: "10"}}
-		}), exitMalformed, "inconsistent certificate: strip."},
+			c.Kind, c.Relaxation, c.Strip = certificates.KindStrip, nil, &certificates.Strip{Alpha: certificates.StripAlpha{Value: certificates.MustAlpha("10")}}
+		}), exitMalformed, "certificate: strip."},
 		{"unsealed", func() []byte {
 			c := quadrantLower(t)
 			c.SHA256 = ""
@@ -377,7 +400,7 @@ func TestExitStatusAcrossFiles(t *testing.T) {
 	dir := t.TempDir()
 	pass := writeCert(t, dir, "pass.json", quadrantLower(t))
 	c := quadrantLower(t)
-	c.Relaxation.Claim.Bound = "0.15"
+	c.Relaxation.Claim.Bound = certificates.MustDecimal("0.15")
 	certificates.Seal(c)
 	fail := writeCert(t, dir, "fail.json", c)
 	bad := writeRaw(t, dir, "bad.json", []byte("{"))
@@ -404,19 +427,19 @@ func TestBackflowClaimBelowTheConstant(t *testing.T) {
 	// down to 0.03.
 	c := expLower(t)
 	r := c.Relaxation
-	r.Claim.Bound = "0.03"
+	r.Claim.Bound = certificates.MustDecimal("0.03")
 	r.Claim.Statement = "lambda_min(M(s)) >= -0.03 for every real s"
 	for i := range r.Cover {
-		el, _ := new(big.Rat).SetString(r.Cover[i].EigLower)
+		el, _ := new(big.Rat).SetString(r.Cover[i].EigLower.String())
 		if el.Cmp(big.NewRat(-299, 10000)) < 0 {
-			r.Cover[i].EigLower = "-0.0299"
+			r.Cover[i].EigLower = certificates.MustDecimal("-0.0299")
 		}
-		eu, _ := new(big.Rat).SetString(r.Cover[i].EigUpper)
+		eu, _ := new(big.Rat).SetString(r.Cover[i].EigUpper.String())
 		if eu.Cmp(big.NewRat(-299, 10000)) < 0 {
-			r.Cover[i].EigUpper = "-0.0299"
+			r.Cover[i].EigUpper = certificates.MustDecimal("-0.0299")
 		}
 	}
-	r.Below.Bound, r.Above.Bound = "-0.0299", "-0.0299"
+	r.Below.Bound, r.Above.Bound = certificates.MustDecimal("-0.0299"), certificates.MustDecimal("-0.0299")
 	certificates.Seal(c)
 	files := []string{writeCert(t, dir, "b1.json", c)}
 	// (2) other weights, with a uniform cover of 200 cells.
@@ -428,15 +451,15 @@ func TestBackflowClaimBelowTheConstant(t *testing.T) {
 		c := expLower(t)
 		r := c.Relaxation
 		r.Terms = terms
-		r.Claim.Bound = "0.03"
+		r.Claim.Bound = certificates.MustDecimal("0.03")
 		r.Cover = nil
 		for i := range 200 {
 			lo := new(big.Rat).Add(big.NewRat(-40, 1), big.NewRat(int64(56*i), 200))
 			hi := new(big.Rat).Add(big.NewRat(-40, 1), big.NewRat(int64(56*(i+1)), 200))
-			r.Cover = append(r.Cover, certificates.Cell{Lo: lo.FloatString(2), Hi: hi.FloatString(2), EigLower: "-0.0299", EigUpper: "1"})
+			r.Cover = append(r.Cover, certificates.Cell{Lo: certificates.MustDecimal(lo.FloatString(2)), Hi: certificates.MustDecimal(hi.FloatString(2)), EigLower: certificates.MustDecimal("-0.0299"), EigUpper: certificates.MustDecimal("1")})
 		}
-		r.Below = certificates.Tail{From: "-40.00", Bound: "-0.0299", Lemma: "tail lemma"}
-		r.Above = certificates.Tail{From: "16.00", Bound: "-0.0001", Lemma: "tail lemma"}
+		r.Below = certificates.Tail{From: certificates.MustDecimal("-40.00"), Bound: certificates.MustDecimal("-0.0299"), Lemma: "tail lemma"}
+		r.Above = certificates.Tail{From: certificates.MustDecimal("16.00"), Bound: certificates.MustDecimal("-0.0001"), Lemma: "tail lemma"}
 		certificates.Seal(c)
 		files = append(files, writeCert(t, dir, fmt.Sprintf("b%d.json", j+2), c))
 	}
@@ -491,7 +514,7 @@ func TestJSONOutput(t *testing.T) {
 func TestStaleHashMessage(t *testing.T) {
 	c := quadrantLower(t)
 	rec := c.SHA256
-	c.Relaxation.Claim.Bound = "0.157"
+	c.Relaxation.Claim.Bound = certificates.MustDecimal("0.157")
 	b, _ := certificates.Encode(c)
 	p := writeRaw(t, t.TempDir(), "s.json", b)
 	code, out := runCheck(t, p)

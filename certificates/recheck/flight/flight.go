@@ -8,53 +8,16 @@ package flight
 import (
 	"fmt"
 	"math/big"
-	"regexp"
 	"strings"
 
 	"wedgebound/certificates"
 	"wedgebound/certificates/recheck"
 )
 
-// SI factors (exact h; CODATA 2018 atomic mass unit).
-const (
-	planck = "6.62607015e-34"
-	dalton = "1.66053906660e-27"
-)
-
-var (
-	units = map[string]map[string]string{
-		"mass":     {"kg": "1", "g": "1e-3", "mg": "1e-6", "u": dalton},
-		"length":   {"m": "1", "mm": "1e-3", "um": "1e-6", "µm": "1e-6", "μm": "1e-6", "nm": "1e-9"},
-		"duration": {"s": "1", "ms": "1e-3", "us": "1e-6", "µs": "1e-6", "μs": "1e-6", "ns": "1e-9"},
-		"kick": {"kg*m/s": "1", "g*m/s": "1e-3", "u*m/s": dalton,
-			"u*mm/s": dalton + "e-3", "u*um/s": dalton + "e-6"},
-	}
-	qty = regexp.MustCompile(`^\s*([+-]?(?:[0-9]+\.?[0-9]*|\.[0-9]+)(?:[eE][+-]?[0-9]{1,4})?)\s*([A-Za-zµμ*/]*)\s*$`)
-)
-
-// read parses a quantity of the given kind; physical says whether a unit
-// is required (and no unit allowed otherwise).
-func read(s, kind string, physical bool) (*big.Rat, error) {
-	m := qty.FindStringSubmatch(s)
-	if m == nil {
-		return nil, fmt.Errorf("%s %q is not a number with an optional unit", kind, s)
-	}
-	v, ok := new(big.Rat).SetString(m[1])
-	if !ok {
-		return nil, fmt.Errorf("%s %q is not a number", kind, s)
-	}
-	if !physical {
-		if m[2] != "" {
-			return nil, fmt.Errorf("%s %q has a unit in a scaled flight", kind, s)
-		}
-		return v, nil
-	}
-	f, ok := units[kind][m[2]]
-	if !ok {
-		return nil, fmt.Errorf("%s %q: unit %q is not a %s unit", kind, s, m[2], kind)
-	}
-	r, _ := new(big.Rat).SetString(f)
-	return v.Mul(v, r), nil
+// read parses a quantity of dimension d by the schema's reader; physical
+// says whether a unit is required (and no unit allowed otherwise).
+func read(s string, d certificates.Dimension, physical bool) (*big.Rat, error) {
+	return certificates.ParseQuantity(s, d, physical)
 }
 
 // affine is the phase-space map (x, p) -> (x + b p + e, p + f) (the upper
@@ -80,7 +43,7 @@ func derive(in certificates.FlightInput) (*derived, error) {
 	phys := strings.TrimSpace(in.Length) != ""
 	L := big.NewRat(1, 1)
 	if phys {
-		l, err := read(in.Length, "length", true)
+		l, err := read(in.Length, certificates.Length, true)
 		if err != nil {
 			return nil, err
 		}
@@ -91,11 +54,11 @@ func derive(in certificates.FlightInput) (*derived, error) {
 	}
 	total := affine{new(big.Rat), new(big.Rat), new(big.Rat)}
 	for i, s := range in.Stages {
-		m, err := read(s.Mass, "mass", phys)
+		m, err := read(s.Mass, certificates.Mass, phys)
 		if err != nil {
 			return nil, fmt.Errorf("stage %d: %v", i+1, err)
 		}
-		t, err := read(s.Duration, "duration", phys)
+		t, err := read(s.Duration, certificates.Duration, phys)
 		if err != nil {
 			return nil, fmt.Errorf("stage %d: %v", i+1, err)
 		}
@@ -104,7 +67,7 @@ func derive(in certificates.FlightInput) (*derived, error) {
 		}
 		q := new(big.Rat)
 		if strings.TrimSpace(s.Kick) != "" {
-			if q, err = read(s.Kick, "kick", phys); err != nil {
+			if q, err = read(s.Kick, certificates.Momentum, phys); err != nil {
 				return nil, fmt.Errorf("stage %d: %v", i+1, err)
 			}
 		}
@@ -115,7 +78,7 @@ func derive(in certificates.FlightInput) (*derived, error) {
 	d := &derived{tm: total.b, shift: total.e, twoPi: phys}
 	d.target = new(big.Rat).Set(L)
 	if strings.TrimSpace(in.Target) != "" {
-		c, err := read(in.Target, "length", phys)
+		c, err := read(in.Target, certificates.Length, phys)
 		if err != nil {
 			return nil, fmt.Errorf("target: %v", err)
 		}
@@ -125,8 +88,7 @@ func derive(in certificates.FlightInput) (*derived, error) {
 	// alpha = L^2/(hbar T); with hbar = h/(2 pi): alpha = 2 pi L^2/(h T).
 	d.alphaR = new(big.Rat).Quo(new(big.Rat).Mul(L, L), d.tm)
 	if phys {
-		h, _ := new(big.Rat).SetString(planck)
-		d.alphaR.Quo(d.alphaR, h)
+		d.alphaR.Quo(d.alphaR, certificates.Planck())
 	}
 	return d, nil
 }
@@ -174,26 +136,27 @@ func (Checker) Check(c *certificates.Certificate, opt recheck.Options) (*recheck
 		}
 		red := f.Reduction
 		for _, x := range []struct {
-			name, rec string
-			want      *big.Rat
+			name string
+			rec  certificates.Fraction
+			want *big.Rat
 		}{{"time_over_mass", red.TimeOverMass, d.tm}, {"shift", red.Shift, d.shift},
 			{"target", red.Target, d.target}, {"shifted_target", red.ShiftedTarget, d.shifted}} {
-			got, err := certificates.Frac(x.rec, x.name)
-			if err != nil {
-				fail("reduction."+x.name, err.Error(), false)
+			got := x.rec.Rat()
+			if got == nil {
+				fail("reduction."+x.name, "missing number", false)
 			} else if got.Cmp(x.want) != 0 {
 				fail("reduction."+x.name, fmt.Sprintf("recorded %s, the stages give %s", x.rec, x.want.RatString()), true)
 			}
 		}
-		r, twoPi, err := certificates.ParseStripAlpha(red.Alpha)
+		r, twoPi := red.Alpha.Factor(), red.Alpha.TwoPi()
 		switch {
-		case err != nil:
-			fail("reduction.alpha", err.Error(), false)
+		case r == nil:
+			fail("reduction.alpha", "missing number", false)
 		case twoPi != d.twoPi || r.Cmp(d.alphaR) != 0:
 			fail("reduction.alpha", fmt.Sprintf("recorded %s, the stages give %s", red.Alpha, det.Alpha), true)
 		}
 	}
-	if f.Strip.Alpha.Value != f.Reduction.Alpha || f.Strip.Alpha.Units != nil {
+	if f.Strip.Alpha.Value.String() != f.Reduction.Alpha.String() || f.Strip.Alpha.Units != nil {
 		fail("strip.alpha", "the strip section is not at the reduced alpha", true)
 	}
 	st := f.Strip

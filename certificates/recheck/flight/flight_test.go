@@ -66,16 +66,18 @@ func TestFlightTampering(t *testing.T) {
 		edit  func(f *certificates.Flight)
 		where string
 	}{
-		{"shift", scaled, func(f *certificates.Flight) { f.Reduction.Shift = "0.2" }, "reduction.shift"},
-		{"shifted target", scaled, func(f *certificates.Flight) { f.Reduction.ShiftedTarget = "1" }, "reduction.shifted_target"},
-		{"time over mass", scaled, func(f *certificates.Flight) { f.Reduction.TimeOverMass = "0.05" }, "reduction.time_over_mass"},
+		{"shift", scaled, func(f *certificates.Flight) { f.Reduction.Shift = certificates.MustFraction("0.2") }, "reduction.shift"},
+		{"shifted target", scaled, func(f *certificates.Flight) { f.Reduction.ShiftedTarget = certificates.MustFraction("1") }, "reduction.shifted_target"},
+		{"time over mass", scaled, func(f *certificates.Flight) { f.Reduction.TimeOverMass = certificates.MustFraction("0.05") }, "reduction.time_over_mass"},
 		{"stage mass", scaled, func(f *certificates.Flight) { f.Input.Stages[1].Mass = "3" }, "reduction.alpha"},
 		{"kick", scaled, func(f *certificates.Flight) { f.Input.Stages[0].Kick = "4" }, "reduction.shift"},
 		{"alpha everywhere", scaled, func(f *certificates.Flight) {
-			f.Reduction.Alpha, f.Strip.Alpha.Value = "20", "20"
+			f.Reduction.Alpha, f.Strip.Alpha.Value = certificates.MustAlpha("20"), certificates.MustAlpha("20")
 		}, "reduction.alpha"},
 		{"physical mass unit", physical, func(f *certificates.Flight) { f.Input.Stages[0].Mass = "1g" }, "reduction.alpha"},
-		{"advantage", scaled, func(f *certificates.Flight) { f.Strip.Advantage.Lower, f.Strip.Advantage.Upper = "0.03", "0.04" }, "strip.advantage"},
+		{"advantage", scaled, func(f *certificates.Flight) {
+			f.Strip.Advantage.Lower, f.Strip.Advantage.Upper = certificates.MustDecimal("0.03"), certificates.MustDecimal("0.04")
+		}, "strip.advantage"},
 	}
 	for _, c := range cases {
 		ct := cert(t, c.plan)

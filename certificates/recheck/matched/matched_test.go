@@ -77,10 +77,16 @@ func TestMatchedTampering(t *testing.T) {
 		edit  func(m *certificates.Matched)
 		where string
 	}{
-		{"lower above the witness", func(m *certificates.Matched) { m.Lower = bump(m.Witness.Rayleigh, "1e-6") }, "lower"},
-		{"witness coefficient", func(m *certificates.Matched) { m.Witness.Coefficients[0] = bump(m.Witness.Coefficients[0], "0.3") }, "witness.rayleigh"},
-		{"cell bound lowered", func(m *certificates.Matched) { m.Cells[len(m.Cells)-1].Upper = "0.01" }, "cells["},
-		{"alpha changed", func(m *certificates.Matched) { m.Alpha = certificates.StripAlpha{Value: "4", Lower: "4", Upper: "4"} }, "cells["},
+		{"lower above the witness", func(m *certificates.Matched) {
+			m.Lower = certificates.MustDecimal(bump(m.Witness.Rayleigh.String(), "1e-6"))
+		}, "lower"},
+		{"witness coefficient", func(m *certificates.Matched) {
+			m.Witness.Coefficients[0] = certificates.MustSci(bump(m.Witness.Coefficients[0].String(), "0.3"))
+		}, "witness.rayleigh"},
+		{"cell bound lowered", func(m *certificates.Matched) { m.Cells[len(m.Cells)-1].Upper = certificates.MustDecimal("0.01") }, "cells["},
+		{"alpha changed", func(m *certificates.Matched) {
+			m.Alpha = certificates.StripAlpha{Value: certificates.MustAlpha("4"), Lower: certificates.MustDecimal("4"), Upper: certificates.MustDecimal("4")}
+		}, "cells["},
 	}
 	for _, c := range cases {
 		ct := cert(t)
@@ -137,7 +143,7 @@ func TestShippedMatched(t *testing.T) {
 	if r := verify(t, c); !r.Pass {
 		t.Errorf("%s: %+v", f, r.Failures)
 	}
-	if lo, _ := new(big.Rat).SetString(c.Matched.Lower); lo.Cmp(big.NewRat(407628, 10000000)) <= 0 {
+	if lo, _ := new(big.Rat).SetString(c.Matched.Lower.String()); lo.Cmp(big.NewRat(407628, 10000000)) <= 0 {
 		t.Errorf("%s: lower end %s is not above 0.0407628", f, c.Matched.Lower)
 	}
 }

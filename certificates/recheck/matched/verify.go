@@ -12,7 +12,6 @@ import (
 	"fmt"
 	"math"
 	"math/big"
-	"regexp"
 
 	"wedgebound/certificates"
 	"wedgebound/certificates/recheck"
@@ -38,55 +37,17 @@ type Detail struct {
 // NewDetail returns a zero Detail.
 func (Checker) NewDetail() any { return &Detail{} }
 
-const (
-	planck = "6.62607015e-34"
-	dalton = "1.66053906660e-27"
-)
-
-var (
-	qty   = regexp.MustCompile(`^\s*([+-]?(?:[0-9]+\.?[0-9]*|\.[0-9]+)(?:[eE][+-]?[0-9]{1,4})?)\s*([A-Za-zµμ]+)\s*$`)
-	units = map[string]map[string]string{
-		"mass":   {"kg": "1", "g": "1e-3", "mg": "1e-6", "u": dalton},
-		"length": {"m": "1", "mm": "1e-3", "um": "1e-6", "µm": "1e-6", "μm": "1e-6", "nm": "1e-9"},
-		"time":   {"s": "1", "ms": "1e-3", "us": "1e-6", "µs": "1e-6", "μs": "1e-6", "ns": "1e-9"},
-	}
-)
-
-func quantity(s, kind string) (*big.Rat, error) {
-	m := qty.FindStringSubmatch(s)
-	if m == nil {
-		return nil, fmt.Errorf("%s %q is not a number with a unit", kind, s)
-	}
-	v, ok := new(big.Rat).SetString(m[1])
-	f, ok2 := units[kind][m[2]]
-	if !ok || !ok2 || v.Sign() <= 0 {
-		return nil, fmt.Errorf("%s %q: not a positive number with a %s unit", kind, s, kind)
-	}
-	r, _ := new(big.Rat).SetString(f)
-	return v.Mul(v, r), nil
-}
-
 // alphaB re-derives alpha as an enclosure at 256 bits.
 func alphaB(a certificates.StripAlpha) (interval.B, error) {
-	r, twoPi, err := certificates.ParseStripAlpha(a.Value)
-	if err != nil {
-		return interval.B{}, err
+	r, twoPi := a.Value.Factor(), a.Value.TwoPi()
+	if r == nil {
+		return interval.B{}, fmt.Errorf("alpha.value: missing number")
 	}
 	if u := a.Units; u != nil {
-		m, err := quantity(u.Mass, "mass")
+		ru, err := u.AlphaFactor()
 		if err != nil {
 			return interval.B{}, err
 		}
-		l, err := quantity(u.Length, "length")
-		if err != nil {
-			return interval.B{}, err
-		}
-		t, err := quantity(u.Time, "time")
-		if err != nil {
-			return interval.B{}, err
-		}
-		h, _ := new(big.Rat).SetString(planck)
-		ru := new(big.Rat).Quo(new(big.Rat).Mul(m, new(big.Rat).Mul(l, l)), new(big.Rat).Mul(h, t))
 		if !twoPi || ru.Cmp(r) != 0 {
 			return interval.B{}, fmt.Errorf("the units give alpha = 2*pi*%s, not %s", ru.RatString(), a.Value)
 		}
@@ -100,12 +61,10 @@ func alphaB(a certificates.StripAlpha) (interval.B, error) {
 	return v, nil
 }
 
-func dec(s string) *big.Rat { r, _ := certificates.Dec(s, ""); return r }
-
 // f64 returns the float64 value of an exact decimal and whether it is
 // exact.
-func f64(s string) (float64, bool) {
-	r := dec(s)
+func f64(n interface{ Rat() *big.Rat }) (float64, bool) {
+	r := n.Rat()
 	f, exact := r.Float64()
 	return f, exact
 }
@@ -148,7 +107,7 @@ func (Checker) Check(c *certificates.Certificate, opt recheck.Options) (*recheck
 	}
 	m := c.Matched
 	det := &Detail{Cells: len(m.Cells)}
-	res := &recheck.Result{Problem: "matched advantage on the strip [-1, 0], alpha = " + m.Alpha.Value, Bound: m.Lower,
+	res := &recheck.Result{Problem: "matched advantage on the strip [-1, 0], alpha = " + m.Alpha.Value.String(), Bound: m.Lower.String(),
 		Statement: fmt.Sprintf("M(alpha) in [%s, %s]", m.Lower, m.Upper), Detail: det}
 	fail := func(f recheck.Failure) { res.Failures = append(res.Failures, f) }
 	alpha, err := alphaB(m.Alpha)
@@ -159,7 +118,7 @@ func (Checker) Check(c *certificates.Certificate, opt recheck.Options) (*recheck
 	al, ah := alpha.Endpoints()
 	alR, _ := al.Rat(nil)
 	ahR, _ := ah.Rat(nil)
-	if dec(m.Alpha.Lower).Cmp(alR) > 0 || dec(m.Alpha.Upper).Cmp(ahR) < 0 {
+	if m.Alpha.Lower.Rat().Cmp(alR) > 0 || m.Alpha.Upper.Rat().Cmp(ahR) < 0 {
 		fail(recheck.Failure{Where: "alpha", Message: "the recorded enclosure does not contain alpha", Refuted: true})
 	}
 	alF := toF(alpha).Mid().Lo()
@@ -182,7 +141,7 @@ func (Checker) Check(c *certificates.Certificate, opt recheck.Options) (*recheck
 		}
 		coef := make([]interval.F, N)
 		for i, s := range w.Coefficients {
-			r := dec(s)
+			r := s.Rat()
 			lo := new(big.Float).SetPrec(53).SetMode(big.ToNegativeInf).SetRat(r)
 			hi := new(big.Float).SetPrec(53).SetMode(big.ToPositiveInf).SetRat(r)
 			coef[i] = interval.F{}.Between(lo, hi)
@@ -200,7 +159,7 @@ func (Checker) Check(c *certificates.Certificate, opt recheck.Options) (*recheck
 		rq := num.Pad(interval.PointF(quad.Hi())).Quo(den)
 		lo, hi, _ := interval.Decimals(rq, 17)
 		det.WitnessRayleigh = "[" + lo + ", " + hi + "]"
-		claim := dec(w.Rayleigh)
+		claim := w.Rayleigh.Rat()
 		switch {
 		case claim.Cmp(ratOf(rq.Hi())) > 0:
 			fail(recheck.Failure{Where: "witness.rayleigh", Message: fmt.Sprintf("the Rayleigh quotient is at most %s, below the recorded %s", hi, w.Rayleigh), Refuted: true, Bound: true})
@@ -209,25 +168,25 @@ func (Checker) Check(c *certificates.Certificate, opt recheck.Options) (*recheck
 		}
 	}
 	// lower <= max(witness, 0): the sup over v includes V, and M >= 0.
-	lower := dec(m.Lower)
-	if lower.Sign() > 0 && lower.Cmp(dec(w.Rayleigh)) > 0 {
+	lower := m.Lower.Rat()
+	if lower.Sign() > 0 && lower.Cmp(w.Rayleigh.Rat()) > 0 {
 		fail(recheck.Failure{Where: "lower", Message: "lower exceeds the witness's Rayleigh quotient", Refuted: true, Bound: true})
 	}
 
 	// Cells.
-	upper := dec(m.Upper)
+	upper := m.Upper.Rat()
 	highest := 0.0
 	for i, cell := range m.Cells {
 		where := fmt.Sprintf("cells[%d]", i)
 		lo, e1 := f64(cell.Lo)
 		hi, e2 := f64(cell.Hi)
 		if !e1 || !e2 {
-			fail(recheck.Failure{Where: where, Message: "cell ends are not float64 values; this verifier needs them", Lo: cell.Lo, Hi: cell.Hi})
+			fail(recheck.Failure{Where: where, Message: "cell ends are not float64 values; this verifier needs them", Lo: cell.Lo.String(), Hi: cell.Hi.String()})
 			continue
 		}
-		U := dec(cell.Upper)
+		U := cell.Upper.Rat()
 		if U.Cmp(upper) > 0 {
-			fail(recheck.Failure{Where: where, Message: "the cell bound exceeds the claimed upper end", Refuted: true, Bound: true, Lo: cell.Lo, Hi: cell.Hi})
+			fail(recheck.Failure{Where: where, Message: "the cell bound exceeds the claimed upper end", Refuted: true, Bound: true, Lo: cell.Lo.String(), Hi: cell.Hi.String()})
 		}
 		ps := pieces(hi, cell.Sizes)
 		N := cell.Sizes[0] + cell.Sizes[1]
@@ -238,7 +197,7 @@ func (Checker) Check(c *certificates.Certificate, opt recheck.Options) (*recheck
 		uF, _ := U.Float64()
 		proved, ok := proveBelow(sys, uF, opt.Workers)
 		if !ok || ratOf(proved).Cmp(U) > 0 {
-			fail(recheck.Failure{Where: where, Lo: cell.Lo, Hi: cell.Hi, Bound: true,
+			fail(recheck.Failure{Where: where, Lo: cell.Lo.String(), Hi: cell.Hi.String(), Bound: true,
 				Message: fmt.Sprintf("cannot prove lambda_max(C_lo - 1[x > hi]) <= %s (verifier's bound %.12g, discarded part %.3g)", cell.Upper, proved, sys.disc)})
 		}
 		highest = math.Max(highest, proved)

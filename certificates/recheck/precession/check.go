@@ -53,7 +53,7 @@ func Check(p *certificates.Precession, workers int) (*Detail, []Failure) {
 	if workers <= 0 {
 		workers = runtime.GOMAXPROCS(0)
 	}
-	d := &Detail{Lower: p.Lower, Upper: p.Upper, WitnessSize: [2]int{len(p.Witness.Even), len(p.Witness.Odd)}}
+	d := &Detail{Lower: p.Lower.String(), Upper: p.Upper.String(), WitnessSize: [2]int{len(p.Witness.Even), len(p.Witness.Odd)}}
 	var fails []Failure
 	fail := func(f Failure) { fails = append(fails, f) }
 	need := 0
@@ -102,13 +102,9 @@ func Check(p *certificates.Precession, workers int) (*Detail, []Failure) {
 	return d, fails
 }
 
-func rat(s string) *big.Rat {
-	r, err := certificates.Dec(s, "")
-	if err != nil {
-		return new(big.Rat)
-	}
-	return r
-}
+// rat is the exact value of a recorded number (present: Verify runs the
+// schema's strict reading first).
+func rat(d certificates.Decimal) *big.Rat { return d.Rat() }
 
 func ratF(x float64) *big.Rat { r, _ := new(big.Float).SetFloat64(x).Rat(nil); return r }
 
@@ -159,18 +155,18 @@ const unit = 1.0 / (1 << 53)
 // columns: for each b, the float sum over a of xhat_a/(2(b-a-p)+1), xhat_a
 // the midpoint of (-1)^a alpha_{3a+j0} x_a, with the running error bound
 // u (sum |s_i| + (2+u) sum |p_i|) plus the radii of xhat.
-func rayleigh(t *table, c class, evenS, oddS []string, workers int) (interval.F, error) {
+func rayleigh(t *table, c class, evenS, oddS []certificates.Decimal, workers int) (interval.F, error) {
 	x := make([]float64, len(evenS))
 	y := make([]float64, len(oddS))
 	for i, s := range evenS {
-		v, err := strconv.ParseInt(s, 10, 64)
+		v, err := strconv.ParseInt(s.String(), 10, 64)
 		if err != nil || math.Abs(float64(v)) > 1<<53 {
 			return interval.F{}, fmt.Errorf("witness coefficient %q is not a 53-bit integer", s)
 		}
 		x[i] = float64(v)
 	}
 	for i, s := range oddS {
-		v, err := strconv.ParseInt(s, 10, 64)
+		v, err := strconv.ParseInt(s.String(), 10, 64)
 		if err != nil || math.Abs(float64(v)) > 1<<53 {
 			return interval.F{}, fmt.Errorf("witness coefficient %q is not a 53-bit integer", s)
 		}

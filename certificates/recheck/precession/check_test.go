@@ -35,16 +35,16 @@ func TestShippedPasses(t *testing.T) {
 func TestFalseClaimsRejected(t *testing.T) {
 	c := shipped(t)
 	p := *c.Precession
-	p.Lower, p.Witness.Rayleigh.Lower, p.Witness.Rayleigh.Upper = "0.7095", "0.7095", "0.7096"
-	p.Upper = "0.71"
+	p.Lower, p.Witness.Rayleigh.Lower, p.Witness.Rayleigh.Upper = certificates.MustDecimal("0.7095"), certificates.MustDecimal("0.7095"), certificates.MustDecimal("0.7096")
+	p.Upper = certificates.MustDecimal("0.71")
 	if _, f := Check(&p, 0); len(f) == 0 || !f[0].Bound {
 		t.Fatalf("a lower bound above the truth passed: %+v", f)
 	}
 	q := *c.Precession
 	q.Sectors = append([]certificates.PrecessionSector(nil), q.Sectors...)
-	q.Upper = "0.7092"
-	q.Sectors[0].Lambda = "1.576"
-	q.Sectors[0].NormBound = "0.7092"
+	q.Upper = certificates.MustDecimal("0.7092")
+	q.Sectors[0].Lambda = certificates.MustDecimal("1.576")
+	q.Sectors[0].NormBound = certificates.MustDecimal("0.7092")
 	_, f := Check(&q, 0)
 	found := false
 	for _, x := range f {

@@ -21,7 +21,7 @@ func (Checker) Check(c *certificates.Certificate, opt recheck.Options) (*recheck
 	if p == nil {
 		return nil, fmt.Errorf("%s certificate without its %q section", c.Kind, "precession")
 	}
-	res := &recheck.Result{Problem: certificates.PrecessionProblem, Bound: p.Lower,
+	res := &recheck.Result{Problem: certificates.PrecessionProblem, Bound: p.Lower.String(),
 		Statement: fmt.Sprintf("P3 = sup spec Q3 in [%s, %s]", p.Lower, p.Upper)}
 	d, fails := Check(p, opt.Workers)
 	for _, f := range fails {

@@ -22,11 +22,11 @@ func lemma(t *table, c class, s certificates.PrecessionSector, workers int) (int
 	if 3*L+8 > len(t.a2) || L < A+3 {
 		return z, errors.New("cutoff and sum length out of range")
 	}
-	lam, err := z.Decimal(s.Lambda)
+	lam, err := z.Decimal(s.Lambda.String())
 	if err != nil {
 		return z, err
 	}
-	eps, err := z.Decimal(s.Epsilon)
+	eps, err := z.Decimal(s.Epsilon.String())
 	if err != nil {
 		return z, err
 	}

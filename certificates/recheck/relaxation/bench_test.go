@@ -25,7 +25,7 @@ func BenchmarkPieceQuadrant(b *testing.B) {
 // BenchmarkPieceExp is the cost of one cell enclosure with one exp term
 // (k = 150), its quadrature regime already built.
 func BenchmarkPieceExp(b *testing.B) {
-	m, _ := NewModel(interval.F{}, Lower, []certificates.Term{{Kind: "exp", Params: map[string]string{"k": "150"}, Weight: "8.46"}})
+	m, _ := NewModel(interval.F{}, Lower, []certificates.Term{{Kind: "exp", Params: map[string]certificates.Decimal{"k": certificates.MustDecimal("150")}, Weight: certificates.MustDecimal("8.46")}})
 	lo, hi := rat(b, "-0.3"), rat(b, "-0.29")
 	m.Piece(lo, hi)
 	for b.Loop() {
@@ -39,7 +39,7 @@ func BenchmarkPieceExp(b *testing.B) {
 // regime (k = 150, s in [-8, -4]).
 func BenchmarkRegimeBuild(b *testing.B) {
 	for b.Loop() {
-		e, _ := newExpTerm(interval.F{}, map[string]string{"k": "150"})
+		e, _ := newExpTerm(interval.F{}, map[string]certificates.Decimal{"k": certificates.MustDecimal("150")})
 		if _, err := e.buildRegime(-3); err != nil {
 			b.Fatal(err)
 		}
@@ -67,7 +67,7 @@ func benchShippedCells(b *testing.B, path string, step int) {
 	var pieces [][2]*big.Rat
 	for i := 0; i < len(c.Relaxation.Cover); i += step {
 		cell := c.Relaxation.Cover[i]
-		pieces = append(pieces, Pieces(rat(b, cell.Lo), rat(b, cell.Hi))...)
+		pieces = append(pieces, Pieces(cell.Lo.Rat(), cell.Hi.Rat())...)
 	}
 	run := func() {
 		for _, p := range pieces {

@@ -7,6 +7,7 @@ import (
 	"math/big"
 	"sync"
 
+	"wedgebound/certificates"
 	"wedgebound/certificates/recheck/checknum"
 	"wedgebound/interval"
 )
@@ -106,9 +107,9 @@ var termCache sync.Map
 
 // expStart is where the support of e^{-k u} starts: u = 0, since the
 // profile is positive for every u > 0 (whatever k).
-func expStart(map[string]string) (*big.Rat, error) { return new(big.Rat), nil }
+func expStart(map[string]certificates.Decimal) (*big.Rat, error) { return new(big.Rat), nil }
 
-func newExpTerm[T interval.Real[T]](like T, params map[string]string) (*expTerm[T], error) {
+func newExpTerm[T interval.Real[T]](like T, params map[string]certificates.Decimal) (*expTerm[T], error) {
 	if len(params) != 1 {
 		return nil, errors.New(`the "exp" family takes exactly one parameter, k`)
 	}
@@ -116,9 +117,9 @@ func newExpTerm[T interval.Real[T]](like T, params map[string]string) (*expTerm[
 	if !ok {
 		return nil, errors.New(`the "exp" family needs the parameter k`)
 	}
-	k, ok := new(big.Rat).SetString(ks)
-	if !ok {
-		return nil, fmt.Errorf("exp parameter k = %q is not a number", ks)
+	k := ks.Rat()
+	if k == nil {
+		return nil, errors.New("exp parameter k: missing number")
 	}
 	if k.Sign() <= 0 {
 		return nil, fmt.Errorf("exp parameter k must be positive, not %s", ks)

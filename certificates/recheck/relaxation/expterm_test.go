@@ -4,6 +4,7 @@ import (
 	"math/big"
 	"testing"
 
+	"wedgebound/certificates"
 	"wedgebound/interval"
 )
 
@@ -46,7 +47,7 @@ func closeTo(x interval.F, v string, tol float64) bool {
 func TestExpIAgainstLerch(t *testing.T) {
 	like := interval.F{}
 	for _, v := range lerchValues {
-		e, err := newExpTerm(like, map[string]string{"k": v.k})
+		e, err := newExpTerm(like, map[string]certificates.Decimal{"k": certificates.MustDecimal(v.k)})
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -85,7 +86,7 @@ func TestExpIReflectionIdentity(t *testing.T) {
 }
 
 func checkReflection[T interval.Real[T]](t *testing.T, like T, k, s string, tol float64) {
-	e, err := newExpTerm(like, map[string]string{"k": k})
+	e, err := newExpTerm(like, map[string]certificates.Decimal{"k": certificates.MustDecimal(k)})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -122,7 +123,7 @@ func TestExpMppClosedForm(t *testing.T) {
 		{"0.5", "7", "0.031429334743579294186"},
 		{"20", "-1.25", "0.0015275183796171390274"},
 	} {
-		e, err := newExpTerm(like, map[string]string{"k": v.k})
+		e, err := newExpTerm(like, map[string]certificates.Decimal{"k": certificates.MustDecimal(v.k)})
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -138,7 +139,7 @@ func TestExpMppClosedForm(t *testing.T) {
 // value theorem in the convex rectangle).
 func TestExpCellEnclosure(t *testing.T) {
 	like := interval.F{}
-	e, _ := newExpTerm(like, map[string]string{"k": "20"})
+	e, _ := newExpTerm(like, map[string]certificates.Decimal{"k": certificates.MustDecimal("20")})
 	for _, cell := range [][2]string{{"-0.5", "-0.25"}, {"-3", "-2.9"}, {"1.5", "1.75"}, {"-64", "-63"}} {
 		a, b := rat(t, cell[0]), rat(t, cell[1])
 		idx, ok := regimeIndex(a, b)
@@ -182,7 +183,7 @@ func overlaps(a, b interval.F) bool { return !a.Less(b) && !b.Less(a) }
 func TestExpTailLemmaSamples(t *testing.T) {
 	like := interval.F{}
 	for _, k := range []string{"0.5", "7", "150"} {
-		e, _ := newExpTerm(like, map[string]string{"k": k})
+		e, _ := newExpTerm(like, map[string]certificates.Decimal{"k": certificates.MustDecimal(k)})
 		C := e.tailConst()
 		for _, s := range []string{"-50", "-9", "-2", "1.5", "4", "33"} {
 			sr := rat(t, s)

@@ -44,12 +44,11 @@ const NoThreshold = "none"
 func Recompute(p certificates.Problem) (Normal, error) {
 	var v, r1, r2, n [2]*big.Rat
 	var err error
-	get := func(s, name string) *big.Rat {
-		if err != nil {
-			return nil
+	get := func(f certificates.Fraction, name string) *big.Rat {
+		r := f.Rat()
+		if r == nil && err == nil {
+			err = fmt.Errorf("%s: missing number", name)
 		}
-		var r *big.Rat
-		r, err = certificates.Frac(s, name)
 		return r
 	}
 	for i := range 2 {
@@ -112,7 +111,7 @@ func (n Normal) Compare(rec certificates.NormalForm) error {
 		}
 	}
 	for _, f := range []struct {
-		rec  string
+		rec  certificates.Fraction
 		want *big.Rat
 		name string
 	}{{rec.A, n.A, "normal_form.a"}, {rec.B, n.B, "normal_form.b"}, {rec.D, n.D, "normal_form.d"}} {
@@ -121,21 +120,21 @@ func (n Normal) Compare(rec certificates.NormalForm) error {
 		}
 	}
 	if n.Threshold == nil {
-		if rec.Threshold == NoThreshold {
+		if rec.Threshold.None() {
 			return nil
 		}
 		return fmt.Errorf("normal_form.threshold: no quadrant-III profile is admissible for this problem (d > 0 and ab = 0), so it must read %q, not %q", NoThreshold, rec.Threshold)
 	}
-	if rec.Threshold == NoThreshold {
+	if rec.Threshold.None() {
 		return fmt.Errorf("normal_form.threshold reads %q but the problem admits profiles from xp = %s on", NoThreshold, n.Threshold.RatString())
 	}
-	return sameRat(rec.Threshold, n.Threshold, "normal_form.threshold")
+	return sameRat(certificates.Fraction(rec.Threshold), n.Threshold, "normal_form.threshold")
 }
 
-func sameRat(rec string, want *big.Rat, name string) error {
-	r, err := certificates.Frac(rec, name)
-	if err != nil {
-		return err
+func sameRat(rec certificates.Fraction, want *big.Rat, name string) error {
+	r := rec.Rat()
+	if r == nil {
+		return fmt.Errorf("%s: missing number", name)
 	}
 	if r.Cmp(want) != 0 {
 		return fmt.Errorf("%s is recorded as %s but the problem gives %s", name, rec, want.RatString())

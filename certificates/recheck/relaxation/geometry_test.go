@@ -9,7 +9,10 @@ import (
 )
 
 func prob(v [2]string, r [2][2]string, n [2]string, off string) certificates.Problem {
-	return certificates.Problem{Vertex: v, Rays: r, Halfplane: certificates.Halfplane{Normal: n, Offset: off}, Edge: "lower"}
+	f := certificates.MustFraction
+	return certificates.Problem{Vertex: [2]certificates.Fraction{f(v[0]), f(v[1])},
+		Rays:      [2][2]certificates.Fraction{{f(r[0][0]), f(r[0][1])}, {f(r[1][0]), f(r[1][1])}},
+		Halfplane: certificates.Halfplane{Normal: [2]certificates.Fraction{f(n[0]), f(n[1])}, Offset: f(off)}, Edge: "lower"}
 }
 
 func TestNormalFormExamples(t *testing.T) {

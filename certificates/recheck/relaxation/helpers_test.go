@@ -15,9 +15,9 @@ func Verify(c *certificates.Certificate, opt Options) (*recheck.Result, error) {
 // backflow is the backflow problem (vertex on the boundary of {p > 0}).
 func backflow(edge string) certificates.Problem {
 	return certificates.Problem{
-		Vertex:    [2]string{"0", "0"},
-		Rays:      [2][2]string{{"0", "1"}, {"-1", "1"}},
-		Halfplane: certificates.Halfplane{Normal: [2]string{"0", "1"}, Offset: "0"},
+		Vertex:    [2]certificates.Fraction{certificates.MustFraction("0"), certificates.MustFraction("0")},
+		Rays:      [2][2]certificates.Fraction{{certificates.MustFraction("0"), certificates.MustFraction("1")}, {certificates.MustFraction("-1"), certificates.MustFraction("1")}},
+		Halfplane: certificates.Halfplane{Normal: [2]certificates.Fraction{certificates.MustFraction("0"), certificates.MustFraction("1")}, Offset: certificates.MustFraction("0")},
 		Edge:      edge,
 	}
 }

@@ -11,7 +11,7 @@ import (
 
 // The big-float model agrees with the float64 one and is much tighter.
 func TestHighPrecisionModel(t *testing.T) {
-	terms := []certificates.Term{{Kind: "exp", Params: map[string]string{"k": "150"}, Weight: "8.46"}}
+	terms := []certificates.Term{{Kind: "exp", Params: map[string]certificates.Decimal{"k": certificates.MustDecimal("150")}, Weight: certificates.MustDecimal("8.46")}}
 	mf, err := NewModel(interval.F{}, Lower, terms)
 	if err != nil {
 		t.Fatal(err)
@@ -51,9 +51,9 @@ func TestHighPrecisionRetry(t *testing.T) {
 	a, b := new(big.Rat).Sub(s, w), new(big.Rat).Add(s, w)
 	c := &certificates.Certificate{Kind: certificates.KindRelaxation, Relaxation: &certificates.Relaxation{
 		Problem:       backflow("lower"),
-		Claim:         certificates.Claim{Edge: "lower", Bound: "0.1559398431912428"},
+		Claim:         certificates.Claim{Edge: "lower", Bound: certificates.MustDecimal("0.1559398431912428")},
 		PrecisionBits: 128,
-		Cover:         []certificates.Cell{{Lo: a.FloatString(30), Hi: b.FloatString(30), EigLower: "-0.156", EigUpper: "-0.155"}},
+		Cover:         []certificates.Cell{{Lo: certificates.MustDecimal(a.FloatString(30)), Hi: certificates.MustDecimal(b.FloatString(30)), EigLower: certificates.MustDecimal("-0.156"), EigUpper: certificates.MustDecimal("-0.155")}},
 	}}
 	v := &verifier{rel: c.Relaxation, opt: Options{MaxDepth: 1}, res: &recheck.Result{}, det: &Detail{}, edge: Lower, thr: rat(t, "-0.1559398431912428")}
 	m, _ := NewModel(interval.F{}, Lower, nil)

@@ -44,7 +44,7 @@ type Model[T interval.Real[T]] struct {
 // symbol: where its profile's support starts, exactly, from the parameters
 // (for the admissibility test against the threshold d^2/(4ab)).
 type family struct {
-	start func(params map[string]string) (*big.Rat, error)
+	start func(params map[string]certificates.Decimal) (*big.Rat, error)
 }
 
 // families is the verifier's own registry of relaxation families; a family
@@ -89,11 +89,11 @@ func NewModel[T interval.Real[T]](like T, edge Edge, terms []certificates.Term) 
 		}
 		m.terms = append(m.terms, e)
 		m.starts = append(m.starts, st)
-		w, err := certificates.Dec(t.Weight, fmt.Sprintf("terms[%d].weight", i))
-		if err != nil {
-			return nil, err
+		w := t.Weight.Rat()
+		if w == nil {
+			return nil, fmt.Errorf("terms[%d].weight: missing number", i)
 		}
-		wt, err := like.Decimal(w.String())
+		wt, err := like.Decimal(t.Weight.String())
 		if err != nil {
 			return nil, err
 		}
@@ -273,7 +273,7 @@ func Pieces(a, b *big.Rat) [][2]*big.Rat {
 // B entry so far (errQ and errT of a regime scaled by |w|/(pi |k+2i|));
 // the tail lemmas and rounding add no separate term (interval arithmetic
 // carries the rounding).
-func (m *Model[T]) Budget() certificates.Budget {
+func (m *Model[T]) Budget() (certificates.Budget, error) {
 	q, t := m.like.Int(0), m.like.Int(0)
 	for i, e := range m.terms {
 		scale := m.weights[i].Abs().Quo(e.mod.Mul(m.like.Pi()))
@@ -286,10 +286,21 @@ func (m *Model[T]) Budget() certificates.Budget {
 		}
 		e.mu.Unlock()
 	}
-	_, qs, err1 := interval.Decimals(q, 3)
-	_, ts, err2 := interval.Decimals(t, 3)
-	if err1 != nil || err2 != nil {
-		qs, ts = "1e300", "1e300" // an unbounded term: record a huge one
+	// An unbounded term records a huge one, 10^300.
+	huge := "1" + strings.Repeat("0", 300)
+	_, qs, err := interval.Decimals(q, 3)
+	if err != nil {
+		qs = huge
 	}
-	return certificates.Budget{Quadrature: qs, Truncation: ts, Tails: "0", Rounding: "0"}
+	_, ts, err := interval.Decimals(t, 3)
+	if err != nil {
+		ts = huge
+	}
+	var b certificates.Budget
+	var errs [4]error
+	b.Quadrature, errs[0] = certificates.ParseDecimal(qs)
+	b.Truncation, errs[1] = certificates.ParseDecimal(ts)
+	b.Tails, errs[2] = certificates.ParseDecimal("0")
+	b.Rounding, errs[3] = certificates.ParseDecimal("0")
+	return b, errors.Join(errs[:]...)
 }

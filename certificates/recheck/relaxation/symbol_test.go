@@ -75,8 +75,8 @@ func TestQuadrantJRealPart(t *testing.T) {
 // on a grid), for a model with two exp terms of opposite signs.
 func TestPieceContainsPoints(t *testing.T) {
 	terms := []certificates.Term{
-		{Kind: "exp", Params: map[string]string{"k": "150"}, Weight: "8.46"},
-		{Kind: "exp", Params: map[string]string{"k": "3"}, Weight: "-0.7"},
+		{Kind: "exp", Params: map[string]certificates.Decimal{"k": certificates.MustDecimal("150")}, Weight: certificates.MustDecimal("8.46")},
+		{Kind: "exp", Params: map[string]certificates.Decimal{"k": certificates.MustDecimal("3")}, Weight: certificates.MustDecimal("-0.7")},
 	}
 	for _, edge := range []Edge{Lower, Upper} {
 		m, err := NewModel(interval.F{}, edge, terms)
@@ -107,7 +107,7 @@ func TestPieceContainsPoints(t *testing.T) {
 
 // The tail enclosure must hold at sample points beyond its start.
 func TestTailHoldsAtSamples(t *testing.T) {
-	terms := []certificates.Term{{Kind: "exp", Params: map[string]string{"k": "150"}, Weight: "8.46"}}
+	terms := []certificates.Term{{Kind: "exp", Params: map[string]certificates.Decimal{"k": certificates.MustDecimal("150")}, Weight: certificates.MustDecimal("8.46")}}
 	for _, edge := range []Edge{Lower, Upper} {
 		m, _ := NewModel(interval.F{}, edge, terms)
 		for _, side := range []int{-1, 1} {
@@ -128,7 +128,7 @@ func TestTailHoldsAtSamples(t *testing.T) {
 }
 
 func TestUnknownKind(t *testing.T) {
-	_, err := NewModel(interval.F{}, Lower, []certificates.Term{{Kind: "band", Params: map[string]string{"a": "1"}, Weight: "1"}})
+	_, err := NewModel(interval.F{}, Lower, []certificates.Term{{Kind: "band", Params: map[string]certificates.Decimal{"a": certificates.MustDecimal("1")}, Weight: certificates.MustDecimal("1")}})
 	if err == nil {
 		t.Fatal("unknown kind accepted")
 	}

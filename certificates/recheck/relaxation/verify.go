@@ -65,7 +65,7 @@ func (Checker) Check(c *certificates.Certificate, opt recheck.Options) (*recheck
 		opt.MaxDepth = 10
 	}
 	rel := c.Relaxation
-	v := &verifier{rel: rel, opt: opt, res: &recheck.Result{Bound: rel.Claim.Bound},
+	v := &verifier{rel: rel, opt: opt, res: &recheck.Result{Bound: rel.Claim.Bound.String()},
 		det: &Detail{Edge: Edge(rel.Claim.Edge), Cells: len(rel.Cover)}}
 	v.res.Problem = describe(rel.Problem)
 	v.run()
@@ -139,9 +139,9 @@ func (v *verifier) run() {
 		v.fail(failure{Where: "claim", Message: fmt.Sprintf("claim.edge must be %q or %q, not %q", Lower, Upper, rel.Claim.Edge)})
 		return
 	}
-	b, err := certificates.Dec(rel.Claim.Bound, "claim.bound")
-	if err != nil {
-		v.fail(failure{Where: "claim", Message: err.Error()})
+	b := rel.Claim.Bound.Rat()
+	if b == nil {
+		v.fail(failure{Where: "claim", Message: "claim.bound: missing number"})
 		return
 	}
 	v.bound = b
@@ -155,7 +155,7 @@ func (v *verifier) run() {
 	if rel.Problem.Edge != rel.Claim.Edge {
 		v.fail(failure{Where: "claim", Message: fmt.Sprintf("claim.edge %q differs from problem.edge %q", rel.Claim.Edge, rel.Problem.Edge)})
 	}
-	v.det.Range = [2]string{rel.Cover[0].Lo, rel.Cover[len(rel.Cover)-1].Hi}
+	v.det.Range = [2]string{rel.Cover[0].Lo.String(), rel.Cover[len(rel.Cover)-1].Hi.String()}
 
 	// Geometry and admissibility, exactly.
 	nf, err := Recompute(rel.Problem)
@@ -219,12 +219,11 @@ type numbers struct {
 func (v *verifier) readNumbers() bool {
 	rel := v.rel
 	ok := true
-	read := func(s, name string) *big.Rat {
-		r, err := certificates.Dec(s, name)
-		if err != nil {
-			v.fail(failure{Where: "structure", Message: err.Error()})
+	read := func(d certificates.Decimal, name string) *big.Rat {
+		r := d.Rat()
+		if r == nil {
+			v.fail(failure{Where: "structure", Message: name + ": missing number"})
 			ok = false
-			return nil
 		}
 		return r
 	}
@@ -247,12 +246,12 @@ func (v *verifier) checkRecorded() {
 	for i, c := range rel.Cover {
 		el, eu, lo := v.nums.cells[i].el, v.nums.cells[i].eu, v.nums.cells[i].lo
 		if v.edge == Lower && el.Cmp(v.thr) < 0 {
-			v.fail(failure{Where: fmt.Sprintf("cover[%d]", i), Lo: c.Lo, Hi: c.Hi, order: orderCover, s: lo,
+			v.fail(failure{Where: fmt.Sprintf("cover[%d]", i), Lo: c.Lo.String(), Hi: c.Hi.String(), order: orderCover, s: lo,
 				Message: fmt.Sprintf("the recorded enclosure [%s, %s] does not support the claim: its lower end is below -%s", c.EigLower, c.EigUpper, rel.Claim.Bound),
 				By:      checknum.RatDecimal(new(big.Rat).Sub(v.thr, el))})
 		}
 		if v.edge == Upper && eu.Cmp(v.thr) > 0 {
-			v.fail(failure{Where: fmt.Sprintf("cover[%d]", i), Lo: c.Lo, Hi: c.Hi, order: orderCover, s: lo,
+			v.fail(failure{Where: fmt.Sprintf("cover[%d]", i), Lo: c.Lo.String(), Hi: c.Hi.String(), order: orderCover, s: lo,
 				Message: fmt.Sprintf("the recorded enclosure [%s, %s] does not support the claim: its upper end is above %s", c.EigLower, c.EigUpper, rel.Claim.Bound),
 				By:      checknum.RatDecimal(new(big.Rat).Sub(eu, v.thr))})
 		}
@@ -265,7 +264,7 @@ func (v *verifier) checkRecorded() {
 	}{{rel.Below, "tail_below", -1, orderTailBelow}, {rel.Above, "tail_above", 1, orderTailAbove}} {
 		tb, from := v.nums.tails[t.side].bound, v.nums.tails[t.side].from
 		lim := big.NewRat(int64(v.mF.TailLimit(t.side)), 1)
-		f := failure{Where: t.name, Lo: t.tail.From, order: t.order, s: from}
+		f := failure{Where: t.name, Lo: t.tail.From.String(), order: t.order, s: from}
 		if v.edge == Lower {
 			switch {
 			case tb.Cmp(v.thr) < 0:
@@ -377,7 +376,7 @@ func (v *verifier) checkCells() {
 		if r.failure != nil {
 			f := *r.failure
 			f.Where = fmt.Sprintf("cover[%d]", i)
-			f.Lo, f.Hi = c.Lo, c.Hi
+			f.Lo, f.Hi = c.Lo.String(), c.Hi.String()
 			f.order, f.s = orderCover, lo
 			v.fail(f)
 			continue
@@ -385,7 +384,7 @@ func (v *verifier) checkCells() {
 		if r.recorded != nil {
 			f := *r.recorded
 			f.Where = fmt.Sprintf("cover[%d]", i)
-			f.Lo, f.Hi = c.Lo, c.Hi
+			f.Lo, f.Hi = c.Lo.String(), c.Hi.String()
 			f.order, f.s = orderCover, lo
 			v.fail(f)
 		}
@@ -566,7 +565,7 @@ func (v *verifier) checkTail(side int) {
 	}
 	from := v.nums.tails[side].from
 	if from.Sign() != side {
-		v.fail(failure{Where: name, Lo: t.From, order: order, s: from, Message: fmt.Sprintf("%s starts at %s, on the wrong side of 0 (the cover must contain s = 0 in its interior)", name, t.From)})
+		v.fail(failure{Where: name, Lo: t.From.String(), order: order, s: from, Message: fmt.Sprintf("%s starts at %s, on the wrong side of 0 (the cover must contain s = 0 in its interior)", name, t.From)})
 		return
 	}
 	// The recorded tail bound must hold at the tail's first point.
@@ -575,7 +574,7 @@ func (v *verifier) checkTail(side int) {
 		tbF := new(big.Float).SetPrec(200).SetRat(tb)
 		pl, ph := pt.Mid.Endpoints()
 		if v.edge == Lower && ph != nil && ph.Cmp(tbF) < 0 || v.edge == Upper && pl != nil && pl.Cmp(tbF) > 0 {
-			v.fail(failure{Where: name, Lo: t.From, order: order, s: from, Refuted: true,
+			v.fail(failure{Where: name, Lo: t.From.String(), order: order, s: from, Refuted: true,
 				Message: fmt.Sprintf("the recorded tail bound %s is false: at s = %s the eigenvalue lies in [%s, %s]", t.Bound, t.From, interval.DecimalDown(pl, 10), interval.DecimalUp(ph, 10))})
 			return
 		}
@@ -585,7 +584,7 @@ func (v *verifier) checkTail(side int) {
 	for {
 		enc, err := v.mF.Tail(cur, side)
 		if err != nil {
-			v.fail(failure{Where: name, Lo: t.From, order: order, s: from, Message: err.Error()})
+			v.fail(failure{Where: name, Lo: t.From.String(), order: order, s: from, Message: err.Error()})
 			return
 		}
 		lo, hi := enc.Endpoints()
@@ -615,7 +614,7 @@ func (v *verifier) checkTail(side int) {
 					by = new(big.Float).Sub(end, thr)
 				}
 			}
-			f := failure{Where: name, Lo: t.From, order: order, s: from, Bound: true,
+			f := failure{Where: name, Lo: t.From.String(), order: order, s: from, Bound: true,
 				Message: fmt.Sprintf("not proved: the verifier's tail lemma at s = %s gives only %s %s, short of the claim", checknum.RatText(cur), map[Edge]string{Lower: "lambda_min >=", Upper: "lambda_max <="}[v.edge], fmtF(end, 10))}
 			if by != nil {
 				f.By = interval.DecimalUp(by, 4)
@@ -642,7 +641,7 @@ func (v *verifier) checkTail(side int) {
 			if r.failure != nil {
 				f := *r.failure
 				lo := new(big.Rat).Add(a, new(big.Rat).Mul(w, big.NewRat(int64(i), 1)))
-				f.Where, f.Lo, f.order, f.s = name, t.From, order, lo
+				f.Where, f.Lo, f.order, f.s = name, t.From.String(), order, lo
 				f.Message = fmt.Sprintf("beyond the recorded tail start %s (the verifier's lemma needs a larger |s|): %s", t.From, f.Message)
 				v.fail(f)
 				return

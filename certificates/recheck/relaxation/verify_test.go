@@ -13,9 +13,9 @@ import (
 
 func backflowProblem(edge string) certificates.Problem {
 	return certificates.Problem{
-		Vertex:    [2]string{"0", "0"},
-		Rays:      [2][2]string{{"0", "1"}, {"-1", "1"}},
-		Halfplane: certificates.Halfplane{Normal: [2]string{"0", "1"}, Offset: "0"},
+		Vertex:    [2]certificates.Fraction{certificates.MustFraction("0"), certificates.MustFraction("0")},
+		Rays:      [2][2]certificates.Fraction{{certificates.MustFraction("0"), certificates.MustFraction("1")}, {certificates.MustFraction("-1"), certificates.MustFraction("1")}},
+		Halfplane: certificates.Halfplane{Normal: [2]certificates.Fraction{certificates.MustFraction("0"), certificates.MustFraction("1")}, Offset: certificates.MustFraction("0")},
 		Edge:      edge,
 	}
 }
@@ -31,7 +31,7 @@ var (
 func expBackflow(t *testing.T) *certificates.Certificate {
 	expOnce.Do(func() {
 		expCert, expErr = reltest.BuildCertificate(reltest.BuildOptions{Problem: backflowProblem("lower"),
-			Terms: []certificates.Term{{Kind: "exp", Params: map[string]string{"k": "150"}, Weight: "8.46"}},
+			Terms: []certificates.Term{{Kind: "exp", Params: map[string]certificates.Decimal{"k": certificates.MustDecimal("150")}, Weight: certificates.MustDecimal("8.46")}},
 			Bound: "0.06", Lo: "-40", Hi: "16"})
 	})
 	if expErr != nil {
@@ -88,7 +88,7 @@ func TestTailExtension(t *testing.T) {
 	rel := c.Relaxation
 	var kept []certificates.Cell
 	for _, cell := range rel.Cover {
-		lo := ratOf(t, cell.Lo)
+		lo := ratOf(t, cell.Lo.String())
 		if lo.Cmp(ratOf(t, "-20")) >= 0 {
 			kept = append(kept, cell)
 		}
@@ -116,13 +116,13 @@ func TestTailExtension(t *testing.T) {
 func TestInadmissibleTerm(t *testing.T) {
 	c := expBackflow(t)
 	rel := c.Relaxation
-	rel.Problem.Vertex = [2]string{"0", "1"}
+	rel.Problem.Vertex = [2]certificates.Fraction{certificates.MustFraction("0"), certificates.MustFraction("1")}
 	nf, err := relaxation.Recompute(rel.Problem)
 	if err != nil {
 		t.Fatal(err)
 	}
-	rel.Normal.D = nf.D.RatString()
-	rel.Normal.Threshold = nf.Threshold.RatString()
+	rel.Normal.D = certificates.MustFraction(nf.D.RatString())
+	rel.Normal.Threshold = certificates.MustThreshold(nf.Threshold.RatString())
 	certificates.Seal(c)
 	r, _ := relaxation.Verify(c, relaxation.Options{})
 	if r.Pass || r.Failures[0].Where != "terms[0]" || !strings.Contains(r.Failures[0].Message, "xp >= 1/4") {
@@ -136,26 +136,26 @@ func TestInadmissibleTerm(t *testing.T) {
 // term is inadmissible. (certificates.Decode does not yet accept "none";
 // this checks the verifier directly.)
 func TestNoAdmissibleProfile(t *testing.T) {
-	p := certificates.Problem{Vertex: [2]string{"0", "0"}, Rays: [2][2]string{{"1", "0"}, {"0", "1"}},
-		Halfplane: certificates.Halfplane{Normal: [2]string{"0", "1"}, Offset: "-1"}, Edge: "lower"}
+	p := certificates.Problem{Vertex: [2]certificates.Fraction{certificates.MustFraction("0"), certificates.MustFraction("0")}, Rays: [2][2]certificates.Fraction{{certificates.MustFraction("1"), certificates.MustFraction("0")}, {certificates.MustFraction("0"), certificates.MustFraction("1")}},
+		Halfplane: certificates.Halfplane{Normal: [2]certificates.Fraction{certificates.MustFraction("0"), certificates.MustFraction("1")}, Offset: certificates.MustFraction("-1")}, Edge: "lower"}
 	c, err := reltest.BuildCertificate(reltest.BuildOptions{Problem: p, Bound: "0.1560", Lo: "-8", Hi: "8"})
 	if err != nil {
 		t.Fatal(err)
 	}
-	if c.Relaxation.Normal.Threshold != relaxation.NoThreshold {
+	if !c.Relaxation.Normal.Threshold.None() {
 		t.Fatalf("threshold %q", c.Relaxation.Normal.Threshold)
 	}
 	r, _ := relaxation.Verify(c, relaxation.Options{})
 	if !r.Pass {
 		t.Fatalf("bare quadrant rejected: %+v", r.Failures)
 	}
-	c.Relaxation.Terms = []certificates.Term{{Kind: "exp", Params: map[string]string{"k": "150"}, Weight: "1"}}
+	c.Relaxation.Terms = []certificates.Term{{Kind: "exp", Params: map[string]certificates.Decimal{"k": certificates.MustDecimal("150")}, Weight: certificates.MustDecimal("1")}}
 	r, _ = relaxation.Verify(c, relaxation.Options{})
 	if r.Pass || r.Failures[0].Where != "terms[0]" {
 		t.Fatalf("inadmissible term accepted: %+v", r.Failures)
 	}
 	c.Relaxation.Terms = nil
-	c.Relaxation.Normal.Threshold = "0"
+	c.Relaxation.Normal.Threshold = certificates.MustThreshold("0")
 	r, _ = relaxation.Verify(c, relaxation.Options{})
 	if r.Pass || r.Failures[0].Where != "normal_form" {
 		t.Fatalf("wrong threshold accepted: %+v", r.Failures)
@@ -175,7 +175,7 @@ func ratOf(t testing.TB, s string) *big.Rat {
 // and shared afterwards (see BenchmarkRegimeBuild for their cost).
 func BenchmarkVerifyExp(b *testing.B) {
 	c, err := reltest.BuildCertificate(reltest.BuildOptions{Problem: backflowProblem("lower"),
-		Terms: []certificates.Term{{Kind: "exp", Params: map[string]string{"k": "150"}, Weight: "8.46"}},
+		Terms: []certificates.Term{{Kind: "exp", Params: map[string]certificates.Decimal{"k": certificates.MustDecimal("150")}, Weight: certificates.MustDecimal("8.46")}},
 		Bound: "0.06", Lo: "-40", Hi: "16"})
 	if err != nil {
 		b.Fatal(err)

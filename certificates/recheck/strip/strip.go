@@ -62,17 +62,17 @@ type Detail struct {
 	BasisSize int    `json:"basis_size"`
 	// RuleNodes is the number of Clenshaw-Curtis nodes the verifier used
 	// per variable.
-	RuleNodes int                       `json:"rule_nodes"`
-	Advantage certificates.StripBracket `json:"advantage"`
-	Deficit   certificates.StripBracket `json:"deficit"`
+	RuleNodes int             `json:"rule_nodes"`
+	Advantage recheck.Bracket `json:"advantage"`
+	Deficit   recheck.Bracket `json:"deficit"`
 	// AdvantageProved and DeficitProved are the brackets the verifier's own
 	// numbers prove (an end is empty when its proof failed).
-	AdvantageProved certificates.StripBracket `json:"advantage_proved"`
-	DeficitProved   certificates.StripBracket `json:"deficit_proved"`
+	AdvantageProved recheck.Bracket `json:"advantage_proved"`
+	DeficitProved   recheck.Bracket `json:"deficit_proved"`
 	// AdvantageRayleigh and DeficitRayleigh are the verifier's enclosures of
 	// the witnesses' Rayleigh quotients.
-	AdvantageRayleigh certificates.StripBracket `json:"advantage_rayleigh"`
-	DeficitRayleigh   certificates.StripBracket `json:"deficit_rayleigh"`
+	AdvantageRayleigh recheck.Bracket `json:"advantage_rayleigh"`
+	DeficitRayleigh   recheck.Bracket `json:"deficit_rayleigh"`
 	// Discarded is the verifier's bound on ||k - P k P||.
 	Discarded string `json:"discarded"`
 	// GalerkinDistance bounds the distance of the verifier's float Galerkin
@@ -102,7 +102,6 @@ type stripVerifier struct {
 	opt   recheck.Options
 	res   *recheck.Result
 	sr    *Detail
-	nums  map[string]*big.Rat
 	alpha interval.B
 	start time.Time
 	stage time.Time
@@ -138,8 +137,9 @@ func (Checker) Check(c *certificates.Certificate, opt recheck.Options) (*recheck
 	}
 	s := c.Strip
 	v := &stripVerifier{s: s, opt: opt, start: start, stage: start,
-		res: &recheck.Result{Problem: stripDescribe(s), Bound: s.Advantage.Lower},
-		sr:  &Detail{Alpha: s.Alpha.Value, BasisSize: s.BasisSize, Advantage: s.Advantage, Deficit: s.Deficit, Seconds: map[string]float64{}}}
+		res: &recheck.Result{Problem: stripDescribe(s), Bound: s.Advantage.Lower.String()},
+		sr: &Detail{Alpha: s.Alpha.Value.String(), BasisSize: s.BasisSize, Advantage: bracketText(s.Advantage), Deficit: bracketText(s.Deficit),
+			Seconds: map[string]float64{}}}
 	v.res.Detail = v.sr
 	// The schema's strict reading, in case c did not come from Decode.
 	if err := certificates.CheckStrict(c); err != nil {
@@ -155,23 +155,23 @@ func (Checker) Check(c *certificates.Certificate, opt recheck.Options) (*recheck
 	return v.res, nil
 }
 
-// readNumbers reads, exactly, every recorded number the proof uses. One
-// that does not read is a failure of the structure and ends the check.
+// exact is a recorded number of the schema.
+type exact interface {
+	Rat() *big.Rat
+	String() string
+}
+
+// readNumbers checks that every recorded number the proof uses is present
+// (the schema's reader has read each exactly). One that is missing is a
+// failure of the structure and ends the check.
 func (v *stripVerifier) readNumbers() bool {
 	s := v.s
-	v.nums = map[string]*big.Rat{}
 	ok := true
-	read := func(txt, name string) {
-		if _, done := v.nums[txt]; done {
-			return
-		}
-		r, err := certificates.Dec(txt, name)
-		if err != nil {
-			v.fail(recheck.Failure{Where: "structure", Message: err.Error()})
+	read := func(n exact, name string) {
+		if n.Rat() == nil {
+			v.fail(recheck.Failure{Where: "structure", Message: name + ": missing number"})
 			ok = false
-			return
 		}
-		v.nums[txt] = r
 	}
 	read(s.Alpha.Lower, "alpha.lower")
 	read(s.Alpha.Upper, "alpha.upper")
@@ -199,13 +199,12 @@ func (v *stripVerifier) readNumbers() bool {
 }
 
 // rat returns the exact value of a recorded number (a copy); readNumbers
-// has read every number the proof asks for.
-func (v *stripVerifier) rat(txt string) *big.Rat {
-	r, ok := v.nums[txt]
-	if !ok {
-		panic("strip verifier: the recorded number " + txt + " was not read first")
-	}
-	return new(big.Rat).Set(r)
+// has checked that every number the proof asks for is present.
+func (v *stripVerifier) rat(n exact) *big.Rat { return n.Rat() }
+
+// bracketText is a recorded bracket as text.
+func bracketText(b certificates.StripBracket) recheck.Bracket {
+	return recheck.Bracket{Lower: b.Lower.String(), Upper: b.Upper.String()}
 }
 
 func ratOfFloat(x float64) *big.Rat { r, _ := new(big.Float).SetFloat64(x).Rat(nil); return r }
@@ -288,7 +287,7 @@ func (v *stripVerifier) stepAlpha(p *stripProof) bool {
 func (v *stripVerifier) stepRule(p *stripProof) bool {
 	s := v.s
 	au := v.rat(s.AlphaUsed)
-	auF, err := interval.F{}.Decimal(s.AlphaUsed)
+	auF, err := interval.F{}.Decimal(s.AlphaUsed.String())
 	if err != nil || !auF.IsFinite() {
 		v.fail(recheck.Failure{Where: "alpha_used", Message: "alpha_used cannot be enclosed"})
 		return false
@@ -421,7 +420,7 @@ func (v *stripVerifier) stepWitnesses(p *stripProof) bool {
 	v.sr.DeficitRayleigh = bracketOf(R[1], 17)
 	for w, wit := range []certificates.StripWitness{s.AdvantageWitness, s.DeficitWitness} {
 		name := []string{"advantage_witness", "deficit_witness"}[w]
-		mine := []certificates.StripBracket{v.sr.AdvantageRayleigh, v.sr.DeficitRayleigh}[w]
+		mine := []recheck.Bracket{v.sr.AdvantageRayleigh, v.sr.DeficitRayleigh}[w]
 		lo, hi := v.rat(wit.Rayleigh.Lower), v.rat(wit.Rayleigh.Upper)
 		rl, rh := ratOfFloat(R[w].Lo()), ratOfFloat(R[w].Hi())
 		if lo.Cmp(rh) > 0 || hi.Cmp(rl) < 0 {
@@ -714,12 +713,12 @@ func planStripRule(alpha float64, N int, coef [2][]interval.F) (int, float64, bo
 	return 0, 0, false
 }
 
-func bracketOf(x interval.F, digits int) certificates.StripBracket {
+func bracketOf(x interval.F, digits int) recheck.Bracket {
 	lo, hi, err := interval.Decimals(x, digits)
 	if err != nil {
-		return certificates.StripBracket{Lower: "-inf", Upper: "inf"}
+		return recheck.Bracket{Lower: "-inf", Upper: "inf"}
 	}
-	return certificates.StripBracket{Lower: lo, Upper: hi}
+	return recheck.Bracket{Lower: lo, Upper: hi}
 }
 
 func ratDown17(r *big.Rat) string {

@@ -92,15 +92,15 @@ func failures(r *recheck.Result) string {
 
 func ratOf(t testing.TB, s string) *big.Rat {
 	t.Helper()
-	r, err := certificates.Dec(s, "test")
+	r, err := certificates.ParseSci(s)
 	if err != nil {
 		t.Fatal(err)
 	}
-	return r
+	return r.Rat()
 }
 
 // meets reports whether [lo, hi] meets [v - h, v + h].
-func meets(t testing.TB, b certificates.StripBracket, v, h string) bool {
+func meets(t testing.TB, b recheck.Bracket, v, h string) bool {
 	lo, hi := ratOf(t, b.Lower), ratOf(t, b.Upper)
 	c, w := ratOf(t, v), ratOf(t, h)
 	return lo.Cmp(new(big.Rat).Add(c, w)) <= 0 && hi.Cmp(new(big.Rat).Sub(c, w)) >= 0
@@ -146,7 +146,7 @@ func TestShippedStripCertificate(t *testing.T) {
 	if !r.Pass {
 		t.Fatalf("fails:\n%s", failures(r))
 	}
-	if r.Recomputed == "" || !strings.Contains(r.Statement, c.Strip.Advantage.Lower) {
+	if r.Recomputed == "" || !strings.Contains(r.Statement, c.Strip.Advantage.Lower.String()) {
 		t.Errorf("result %+v", r)
 	}
 }
@@ -167,34 +167,50 @@ func TestStripTampering(t *testing.T) {
 	}
 	cases := []tamper{
 		{"advantage witness coefficient", "50", func(s *certificates.Strip) {
-			s.AdvantageWitness.Coefficients[0] = bump(s.AdvantageWitness.Coefficients[0], "0.05")
+			s.AdvantageWitness.Coefficients[0] = certificates.MustSci(bump(s.AdvantageWitness.Coefficients[0].String(), "0.05"))
 		}, "advantage_witness.rayleigh", true},
 		{"deficit witness coefficient", "50", func(s *certificates.Strip) {
-			s.DeficitWitness.Coefficients[3] = bump(s.DeficitWitness.Coefficients[3], "0.01")
+			s.DeficitWitness.Coefficients[3] = certificates.MustSci(bump(s.DeficitWitness.Coefficients[3].String(), "0.01"))
 		}, "deficit_witness.rayleigh", true},
-		{"advantage lower end above A", "50", func(s *certificates.Strip) { s.Advantage.Lower, s.Advantage.Upper = "0.0295", "0.03" }, "advantage", true},
-		{"advantage lower end slightly up", "50", func(s *certificates.Strip) { s.Advantage.Lower = "0.0294571885" }, "advantage", false},
-		{"advantage upper end below A", "50", func(s *certificates.Strip) { s.Advantage.Lower, s.Advantage.Upper = "0.0294", "0.02945" }, "advantage", true},
-		{"advantage upper end slightly down", "50", func(s *certificates.Strip) { s.Advantage.Upper = "0.02945719" }, "advantage", false},
-		{"deficit lower end above", "50", func(s *certificates.Strip) { s.Deficit.Lower, s.Deficit.Upper = "0.99998", "1" }, "deficit", true},
-		{"deficit upper end below", "50", func(s *certificates.Strip) { s.Deficit.Lower, s.Deficit.Upper = "0.999", "0.9999" }, "deficit", true},
-		{"alpha changed", "50", func(s *certificates.Strip) { s.Alpha = certificates.StripAlpha{Value: "60", Lower: "60", Upper: "60"} }, "errors.alpha_rounding", true},
-		{"alpha nudged", "50", func(s *certificates.Strip) {
-			s.Alpha = certificates.StripAlpha{Value: "50.000001", Lower: "50", Upper: "50.00001"}
+		{"advantage lower end above A", "50", func(s *certificates.Strip) {
+			s.Advantage.Lower, s.Advantage.Upper = certificates.MustDecimal("0.0295"), certificates.MustDecimal("0.03")
+		}, "advantage", true},
+		{"advantage lower end slightly up", "50", func(s *certificates.Strip) { s.Advantage.Lower = certificates.MustDecimal("0.0294571885") }, "advantage", false},
+		{"advantage upper end below A", "50", func(s *certificates.Strip) {
+			s.Advantage.Lower, s.Advantage.Upper = certificates.MustDecimal("0.0294"), certificates.MustDecimal("0.02945")
+		}, "advantage", true},
+		{"advantage upper end slightly down", "50", func(s *certificates.Strip) { s.Advantage.Upper = certificates.MustDecimal("0.02945719") }, "advantage", false},
+		{"deficit lower end above", "50", func(s *certificates.Strip) {
+			s.Deficit.Lower, s.Deficit.Upper = certificates.MustDecimal("0.99998"), certificates.MustDecimal("1")
+		}, "deficit", true},
+		{"deficit upper end below", "50", func(s *certificates.Strip) {
+			s.Deficit.Lower, s.Deficit.Upper = certificates.MustDecimal("0.999"), certificates.MustDecimal("0.9999")
+		}, "deficit", true},
+		{"alpha changed", "50", func(s *certificates.Strip) {
+			s.Alpha = certificates.StripAlpha{Value: certificates.MustAlpha("60"), Lower: certificates.MustDecimal("60"), Upper: certificates.MustDecimal("60")}
 		}, "errors.alpha_rounding", true},
-		{"alpha enclosure", "50", func(s *certificates.Strip) { s.Alpha.Lower, s.Alpha.Upper = "50.5", "51" }, "alpha", true},
-		{"alpha_used", "50", func(s *certificates.Strip) { s.AlphaUsed = "50.5" }, "errors.alpha_rounding", true},
+		{"alpha nudged", "50", func(s *certificates.Strip) {
+			s.Alpha = certificates.StripAlpha{Value: certificates.MustAlpha("50.000001"), Lower: certificates.MustDecimal("50"), Upper: certificates.MustDecimal("50.00001")}
+		}, "errors.alpha_rounding", true},
+		{"alpha enclosure", "50", func(s *certificates.Strip) {
+			s.Alpha.Lower, s.Alpha.Upper = certificates.MustDecimal("50.5"), certificates.MustDecimal("51")
+		}, "alpha", true},
+		{"alpha_used", "50", func(s *certificates.Strip) { s.AlphaUsed = certificates.MustDecimal("50.5") }, "errors.alpha_rounding", true},
 		{"units", "units", func(s *certificates.Strip) { s.Alpha.Units.Mass = "2u" }, "alpha.units", true},
-		{"units alpha_rounding", "units", func(s *certificates.Strip) { s.Errors.AlphaRounding = "0" }, "errors.alpha_rounding", true},
-		{"discarded part too small", "50", func(s *certificates.Strip) { s.Errors.DiscardedPart = "1e-12" }, "errors.discarded_part", false},
-		{"discarded part too large", "50", func(s *certificates.Strip) { s.Errors.DiscardedPart = "1e-6" }, "advantage", false},
-		{"alpha rounding too large", "50", func(s *certificates.Strip) { s.Errors.AlphaRounding = "1e-6" }, "advantage", false},
-		{"galerkin_lowest raised", "50", func(s *certificates.Strip) { s.GalerkinLowest = "-0.0294" }, "galerkin_lowest", true},
-		{"galerkin_lowest at the estimate", "50", func(s *certificates.Strip) { s.GalerkinLowest = bump(s.Certifier.LowestEstimate, "1e-14") }, "galerkin_lowest", false},
-		{"galerkin_highest lowered", "50", func(s *certificates.Strip) { s.GalerkinHighest = "0.99997" }, "galerkin_highest", true},
-		{"galerkin_highest at the estimate", "50", func(s *certificates.Strip) { s.GalerkinHighest = bump(s.Certifier.HighestEstimate, "-1e-14") }, "galerkin_highest", false},
+		{"units alpha_rounding", "units", func(s *certificates.Strip) { s.Errors.AlphaRounding = certificates.MustDecimal("0") }, "errors.alpha_rounding", true},
+		{"discarded part too small", "50", func(s *certificates.Strip) { s.Errors.DiscardedPart = certificates.MustDecimal("0.000000000001") }, "errors.discarded_part", false},
+		{"discarded part too large", "50", func(s *certificates.Strip) { s.Errors.DiscardedPart = certificates.MustDecimal("0.000001") }, "advantage", false},
+		{"alpha rounding too large", "50", func(s *certificates.Strip) { s.Errors.AlphaRounding = certificates.MustDecimal("0.000001") }, "advantage", false},
+		{"galerkin_lowest raised", "50", func(s *certificates.Strip) { s.GalerkinLowest = certificates.MustDecimal("-0.0294") }, "galerkin_lowest", true},
+		{"galerkin_lowest at the estimate", "50", func(s *certificates.Strip) {
+			s.GalerkinLowest = certificates.MustDecimal(bump(s.Certifier.LowestEstimate.String(), "1e-14"))
+		}, "galerkin_lowest", false},
+		{"galerkin_highest lowered", "50", func(s *certificates.Strip) { s.GalerkinHighest = certificates.MustDecimal("0.99997") }, "galerkin_highest", true},
+		{"galerkin_highest at the estimate", "50", func(s *certificates.Strip) {
+			s.GalerkinHighest = certificates.MustDecimal(bump(s.Certifier.HighestEstimate.String(), "-1e-14"))
+		}, "galerkin_highest", false},
 		{"rayleigh record", "50", func(s *certificates.Strip) {
-			s.AdvantageWitness.Rayleigh = certificates.StripBracket{Lower: "-0.1", Upper: "-0.05"}
+			s.AdvantageWitness.Rayleigh = certificates.StripBracket{Lower: certificates.MustDecimal("-0.1"), Upper: certificates.MustDecimal("-0.05")}
 		}, "advantage_witness.rayleigh", true},
 	}
 	for _, c := range cases {
@@ -226,10 +242,11 @@ func TestStripTampering(t *testing.T) {
 }
 
 func ratOfNoT(s string) *big.Rat {
-	r, err := certificates.Dec(s, "x")
+	d, err := certificates.ParseSci(s)
 	if err != nil {
 		panic(err)
 	}
+	r := d.Rat()
 	return r
 }
 
@@ -243,13 +260,15 @@ func TestStripHarmlessEdits(t *testing.T) {
 		note string
 	}{
 		{"tiny witness change", func(s *certificates.Strip) {
-			s.AdvantageWitness.Coefficients[len(s.AdvantageWitness.Coefficients)-1] = "1e-25"
+			s.AdvantageWitness.Coefficients[len(s.AdvantageWitness.Coefficients)-1] = certificates.MustSci("1e-25")
 		}, ""},
 		{"wider brackets", func(s *certificates.Strip) {
-			s.Advantage = certificates.StripBracket{Lower: "0.029", Upper: "0.03"}
-			s.Deficit = certificates.StripBracket{Lower: "0", Upper: "1.1"}
+			s.Advantage = certificates.StripBracket{Lower: certificates.MustDecimal("0.029"), Upper: certificates.MustDecimal("0.03")}
+			s.Deficit = certificates.StripBracket{Lower: certificates.MustDecimal("0"), Upper: certificates.MustDecimal("1.1")}
 		}, ""},
-		{"poor ellipses", func(s *certificates.Strip) { s.Errors.DiscardedEtaX, s.Errors.DiscardedEtaY = "0.2", "3" }, "own ellipses"},
+		{"poor ellipses", func(s *certificates.Strip) {
+			s.Errors.DiscardedEtaX, s.Errors.DiscardedEtaY = certificates.MustDecimal("0.2"), certificates.MustDecimal("3")
+		}, "own ellipses"},
 	} {
 		cert := stripCert(t, "50")
 		c.edit(cert.Strip)

@@ -1,6 +1,7 @@
 package witness
 
 import (
+	"errors"
 	"fmt"
 	"math"
 	"math/big"
@@ -8,6 +9,7 @@ import (
 	"sort"
 
 	"wedgebound/certificates"
+	"wedgebound/certificates/recheck"
 	"wedgebound/certificates/recheck/checknum"
 	"wedgebound/interval"
 )
@@ -26,12 +28,12 @@ type fn struct {
 
 // Detail is the verifier's own account of a witness certificate.
 type Detail struct {
-	Norm      certificates.Interval `json:"norm"`
-	Backflow  certificates.Interval `json:"backflow"`
-	Quotient  certificates.Interval `json:"quotient"`
-	Remainder string                `json:"quadrature_remainder"`
-	Panels    int                   `json:"panels"`
-	Nodes     int                   `json:"nodes"`
+	Norm      recheck.Bracket `json:"norm"`
+	Backflow  recheck.Bracket `json:"backflow"`
+	Quotient  recheck.Bracket `json:"quotient"`
+	Remainder string          `json:"quadrature_remainder"`
+	Panels    int             `json:"panels"`
+	Nodes     int             `json:"nodes"`
 }
 
 func ratF(r *big.Rat) interval.F {
@@ -181,11 +183,11 @@ func normSquared(w *certificates.Witness) (interval.F, error) {
 	}
 	var fs []fb
 	for i, f := range w.Basis {
-		b, err := like.Decimal(f.Width)
+		b, err := like.Decimal(f.Width.String())
 		if err != nil {
 			return interval.PointF(0), err
 		}
-		a, err := like.Decimal(w.Coefficients[i])
+		a, err := like.Decimal(w.Coefficients[i].String())
 		if err != nil {
 			return interval.PointF(0), err
 		}
@@ -309,13 +311,9 @@ func Check(w *certificates.Witness, workers int) (*Detail, []string, error) {
 	e := &evaluator{}
 	widx := map[string]int{}
 	for i, f := range w.Basis {
-		b, err := certificates.Dec(f.Width, fmt.Sprintf("basis[%d].width", i))
-		if err != nil {
-			return nil, nil, err
-		}
-		a, err := certificates.Dec(w.Coefficients[i], fmt.Sprintf("coefficients[%d]", i))
-		if err != nil {
-			return nil, nil, err
+		b, a := f.Width.Rat(), w.Coefficients[i].Rat()
+		if b == nil || a == nil {
+			return nil, nil, fmt.Errorf("basis[%d]: missing width or coefficient", i)
 		}
 		bf, _ := b.Float64()
 		key := b.RatString()
@@ -415,16 +413,20 @@ func Check(w *certificates.Witness, workers int) (*Detail, []string, error) {
 	d.Norm = encl(norm)
 	d.Backflow = encl(num)
 	d.Quotient = encl(q)
-	_, d.Remainder, _ = interval.Decimals(interval.PointF(remTot), 3)
+	if _, r, err := interval.Decimals(interval.PointF(remTot), 3); err == nil {
+		d.Remainder = r
+	} else {
+		d.Remainder = "unbounded"
+	}
 	if len(fails) > 0 {
 		return d, fails, nil
 	}
 	if !q.IsFinite() {
 		return d, []string{"the Rayleigh quotient is not enclosed"}, nil
 	}
-	bound, err := certificates.Dec(w.Bound, "bound")
-	if err != nil {
-		return nil, nil, err
+	bound := w.Bound.Rat()
+	if bound == nil {
+		return nil, nil, errors.New("bound: missing number")
 	}
 	qlo, _ := q.Endpoints()
 	qr, _ := qlo.Rat(nil)
@@ -436,9 +438,8 @@ func Check(w *certificates.Witness, workers int) (*Detail, []string, error) {
 		got  interval.F
 		name string
 	}{{w.Norm, norm, "norm"}, {w.Backflow, num, "backflow"}, {w.Quotient, q, "quotient"}} {
-		lo, err1 := certificates.Dec(c.rec.Lower, c.name)
-		hi, err2 := certificates.Dec(c.rec.Upper, c.name)
-		if err1 != nil || err2 != nil {
+		lo, hi := c.rec.Lower.Rat(), c.rec.Upper.Rat()
+		if lo == nil || hi == nil {
 			return nil, nil, fmt.Errorf("witness.%s is not a decimal interval", c.name)
 		}
 		gl, gh := c.got.Endpoints()
@@ -451,10 +452,10 @@ func Check(w *certificates.Witness, workers int) (*Detail, []string, error) {
 	return d, fails, nil
 }
 
-func encl(x interval.F) certificates.Interval {
+func encl(x interval.F) recheck.Bracket {
 	lo, hi, err := interval.Decimals(x, 17)
 	if err != nil {
-		return certificates.Interval{Lower: "unbounded", Upper: "unbounded"}
+		return recheck.Bracket{Lower: "unbounded", Upper: "unbounded"}
 	}
-	return certificates.Interval{Lower: lo, Upper: hi}
+	return recheck.Bracket{Lower: lo, Upper: hi}
 }

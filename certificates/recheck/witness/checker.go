@@ -28,7 +28,7 @@ func (Checker) Check(c *certificates.Certificate, opt recheck.Options) (*recheck
 	if err != nil {
 		return nil, err
 	}
-	res := &recheck.Result{Problem: Problem, Bound: w.Bound, Statement: w.Statement}
+	res := &recheck.Result{Problem: Problem, Bound: w.Bound.String(), Statement: w.Statement}
 	if d != nil {
 		res.Recomputed = d.Quotient.Lower
 		res.Notes = append(res.Notes, fmt.Sprintf("recomputed Rayleigh quotient in [%s, %s] (%d panels, %d Clenshaw-Curtis nodes, quadrature remainder %s)",

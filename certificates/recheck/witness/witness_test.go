@@ -45,7 +45,7 @@ func TestShippedWitnessPasses(t *testing.T) {
 	if len(fails) > 0 {
 		t.Fatalf("shipped witness certificate fails: %v", fails)
 	}
-	b := rat(t, c.Witness.Bound)
+	b := rat(t, c.Witness.Bound.String())
 	// Floating-point estimates of c_bm: 0.0384517 (A. J. Bracken and
 	// G. F. Melloy, J. Phys. A 27 (1994) 2197; M. Penz, G. Gruebl, S. Kreidl,
 	// P. Wagner, J. Phys. A 39 (2006) 423) and 0.0384506 (C. J. Fewster and
@@ -65,7 +65,7 @@ func TestShippedWitnessPasses(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	if b.Cmp(rat(t, rc.Relaxation.Claim.Bound)) >= 0 {
+	if b.Cmp(rat(t, rc.Relaxation.Claim.Bound.String())) >= 0 {
 		t.Errorf("witness lower bound %s is not below the certified upper bound %s", c.Witness.Bound, rc.Relaxation.Claim.Bound)
 	}
 	// The recomputed enclosure is narrow (the two routes agree closely).
@@ -95,15 +95,15 @@ func reseal(t *testing.T, c *certificates.Certificate) *certificates.Certificate
 func TestTamperedWitnessRejected(t *testing.T) {
 	cases := map[string]func(w *certificates.Witness){
 		"coefficient": func(w *certificates.Witness) {
-			v, _ := new(big.Rat).SetString(w.Coefficients[7])
+			v, _ := new(big.Rat).SetString(w.Coefficients[7].String())
 			v.Mul(v, big.NewRat(101, 100))
-			w.Coefficients[7] = v.FloatString(30)
+			w.Coefficients[7] = certificates.MustDecimal(v.FloatString(30))
 		},
 		"bound": func(w *certificates.Witness) {
-			w.Bound = "0.0383"
-			w.Quotient = certificates.Interval{Lower: "0.0383", Upper: "0.0384"}
+			w.Bound = certificates.MustDecimal("0.0383")
+			w.Quotient = certificates.Interval{Lower: certificates.MustDecimal("0.0383"), Upper: certificates.MustDecimal("0.0384")}
 		},
-		"width": func(w *certificates.Witness) { w.Basis[10].Width = "0.5" },
+		"width": func(w *certificates.Witness) { w.Basis[10].Width = certificates.MustDecimal("0.5") },
 		"power": func(w *certificates.Witness) { w.Basis[3].Power++ },
 		"chirp": func(w *certificates.Witness) {
 			if w.Basis[4].Chirp == "sin" {

@@ -9,7 +9,6 @@ import (
 	"math/big"
 
 	"wedgebound/certificates"
-	"wedgebound/certificates/recheck/checknum"
 	"wedgebound/certificates/recheck/relaxation"
 	"wedgebound/interval"
 )
@@ -44,18 +43,19 @@ func BuildCertificate(o BuildOptions) (*certificates.Certificate, error) {
 	if err != nil {
 		return nil, err
 	}
-	bound, err := certificates.Dec(o.Bound, "bound")
+	boundD, err := certificates.ParseDecimal(o.Bound)
 	if err != nil {
-		return nil, err
+		return nil, fmt.Errorf("bound: %v", err)
 	}
-	lo, err := certificates.Dec(o.Lo, "lo")
+	loD, err := certificates.ParseDecimal(o.Lo)
 	if err != nil {
-		return nil, err
+		return nil, fmt.Errorf("lo: %v", err)
 	}
-	hi, err := certificates.Dec(o.Hi, "hi")
+	hiD, err := certificates.ParseDecimal(o.Hi)
 	if err != nil {
-		return nil, err
+		return nil, fmt.Errorf("hi: %v", err)
 	}
+	bound, lo, hi := boundD.Rat(), loD.Rat(), hiD.Rat()
 	if lo.Sign() >= 0 || hi.Sign() <= 0 {
 		return nil, errors.New("the cover must contain 0 in its interior")
 	}
@@ -112,7 +112,16 @@ func BuildCertificate(o BuildOptions) (*certificates.Certificate, error) {
 				if err != nil {
 					return nil, err
 				}
-				cells = append(cells, certificates.Cell{Lo: checknum.RatText(p[0]), Hi: checknum.RatText(p[1]), EigLower: el, EigUpper: eu})
+				var c certificates.Cell
+				var errs [4]error
+				c.Lo, errs[0] = certificates.DecimalOf(p[0])
+				c.Hi, errs[1] = certificates.DecimalOf(p[1])
+				c.EigLower, errs[2] = certificates.ParseDecimal(el)
+				c.EigUpper, errs[3] = certificates.ParseDecimal(eu)
+				if err := errors.Join(errs[:]...); err != nil {
+					return nil, err
+				}
+				cells = append(cells, c)
 			}
 		}
 	}
@@ -137,14 +146,21 @@ func BuildCertificate(o BuildOptions) (*certificates.Certificate, error) {
 		if edge == relaxation.Upper {
 			b = h
 		}
-		tails[i] = certificates.Tail{From: checknum.RatText(from), Bound: b, Lemma: "recheck tail lemma (quadrant |J| <= pi/(4|a|), exp terms C(k)/|a|, monotone corner)"}
+		fromD, err1 := certificates.DecimalOf(from)
+		bD, err2 := certificates.ParseDecimal(b)
+		if err := errors.Join(err1, err2); err != nil {
+			return nil, err
+		}
+		tails[i] = certificates.Tail{From: fromD, Bound: bD, Lemma: "recheck tail lemma (quadrant |J| <= pi/(4|a|), exp terms C(k)/|a|, monotone corner)"}
 	}
-	normal := certificates.NormalForm{A: nf.A.RatString(), B: nf.B.RatString(), D: nf.D.RatString(), Threshold: relaxation.NoThreshold}
+	normal := certificates.NormalForm{A: certificates.FractionOf(nf.A), B: certificates.FractionOf(nf.B), D: certificates.FractionOf(nf.D),
+		Threshold: certificates.NewThreshold(nf.Threshold)}
 	for i := range 4 {
-		normal.Map[i] = nf.Map[i].RatString()
+		normal.Map[i] = certificates.FractionOf(nf.Map[i])
 	}
-	if nf.Threshold != nil {
-		normal.Threshold = nf.Threshold.RatString()
+	budget, err := m.Budget()
+	if err != nil {
+		return nil, err
 	}
 	stmt := fmt.Sprintf("lambda_min(M(s)) >= -%s for every real s", o.Bound)
 	if edge == relaxation.Upper {
@@ -156,12 +172,12 @@ func BuildCertificate(o BuildOptions) (*certificates.Certificate, error) {
 			Problem:       o.Problem,
 			Normal:        normal,
 			Terms:         o.Terms,
-			Claim:         certificates.Claim{Edge: o.Problem.Edge, Bound: o.Bound, Statement: stmt},
+			Claim:         certificates.Claim{Edge: o.Problem.Edge, Bound: boundD, Statement: stmt},
 			PrecisionBits: 53,
 			Cover:         cells,
 			Below:         tails[0],
 			Above:         tails[1],
-			Budget:        m.Budget(),
+			Budget:        budget,
 		},
 	}
 	if err := certificates.Seal(c); err != nil {
