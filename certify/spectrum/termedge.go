@@ -82,8 +82,9 @@ const (
 	termWindowGap = 1e-4
 	// termMaxWindows bounds the windows per edge.
 	termMaxWindows = 6
-	// termConvexCells bounds the cells of one convexity proof.
-	termConvexCells = 4096
+	// termConvexCells bounds the cell enclosures of one convexity proof
+	// (per window radius tried).
+	termConvexCells = 128
 	// termCoverCells bounds the cells of the cover outside the windows.
 	termCoverCells = 20000
 )
@@ -231,7 +232,7 @@ func solveTermEdge(relF regions.Relaxation[interval.F], relB regions.Relaxation[
 	var wins []window
 	for k, c := range keep {
 		stage := fmt.Sprintf("%s: window %d/%d", name, k+1, len(keep))
-		w, err := newtonWindow(relF, relB, e, sgn, c.s, P, func(done, total int) { progress(stage, done, total) })
+		w, err := newtonWindow(relF, relB, e, sgn, c.s, P, func(step string, done, total int) { progress(stage+" "+step, done, total) })
 		if err != nil {
 			return TermEdge{}, fmt.Errorf("%s: near s = %.6g: %v", name, c.s, err)
 		}
@@ -374,7 +375,7 @@ func goldenFloat(f func(float64) float64, a, b float64) float64 {
 
 // newtonWindow proves the minimum of g = sgn lambda over a window around
 // the float candidate s0.
-func newtonWindow(relF regions.Relaxation[interval.F], relB regions.Relaxation[interval.B], e regions.Edge, sgn float64, s0 float64, P uint, progress func(done, total int)) (window, error) {
+func newtonWindow(relF regions.Relaxation[interval.F], relB regions.Relaxation[interval.B], e regions.Edge, sgn float64, s0 float64, P uint, progress func(step string, done, total int)) (window, error) {
 	gj := func(j regions.EigJet[interval.F]) regions.EigJet[interval.F] {
 		if sgn < 0 {
 			return regions.EigJet[interval.F]{L: j.L.Neg(), L1: j.L1.Neg(), L2: j.L2.Neg()}
@@ -396,7 +397,7 @@ func newtonWindow(relF regions.Relaxation[interval.F], relB regions.Relaxation[i
 			continue
 		}
 		jetF = j
-		if m, h2, ok = convexF(jetF, e, sgn, lo, hi); ok {
+		if m, h2, ok = convexF(jetF, e, sgn, lo, hi, func(done int) { progress("convexity", done, termConvexCells) }); ok {
 			break
 		}
 	}
@@ -404,9 +405,9 @@ func newtonWindow(relF regions.Relaxation[interval.F], relB regions.Relaxation[i
 		if lastErr != nil {
 			return window{}, lastErr
 		}
-		return window{}, fmt.Errorf("could not prove convexity of the eigenvalue")
+		return window{}, fmt.Errorf("could not prove convexity of the eigenvalue on [%g, %g] within %d cells per window (the float64 jet enclosures are too wide, as with large weights)", sc-1.0/256, sc+1.0/256, termConvexCells)
 	}
-	progress(1, 4)
+	progress("Newton", 1, 4)
 	// Float Newton from s0 (a proposal only).
 	c := s0
 	for range 30 {
@@ -425,7 +426,7 @@ func newtonWindow(relF regions.Relaxation[interval.F], relB regions.Relaxation[i
 			break
 		}
 	}
-	progress(2, 4)
+	progress("Newton", 2, 4)
 	jetB, err := relB.JetOn(lo, hi, 1)
 	if err != nil {
 		return window{}, err
@@ -464,7 +465,7 @@ func newtonWindow(relF regions.Relaxation[interval.F], relB regions.Relaxation[i
 			return window{}, fmt.Errorf("Newton's method left the window [%g, %g]", lo, hi)
 		}
 	}
-	progress(3, 4)
+	progress("Newton", 3, 4)
 	v := jetB.Eig(sB, e, 0).L
 	if sgn < 0 {
 		v = v.Neg()
@@ -483,14 +484,14 @@ func newtonWindow(relF regions.Relaxation[interval.F], relB regions.Relaxation[i
 	if !N.IsFinite() || !X.Contains(N) {
 		return window{}, fmt.Errorf("the interval Newton step does not contract")
 	}
-	progress(4, 4)
+	progress("Newton", 4, 4)
 	return window{lo: lo, hi: hi, g: v, corr: interval.Upper(corr), at: N}, nil
 }
 
 // convexF proves sgn lambda” >= m > 0 on [lo, hi] by float64 interval
-// cells of the jet (bisected as needed, at most termConvexCells) and
-// returns m and the hull of sgn lambda” over the window.
-func convexF(j regions.RelaxationJet[interval.F], e regions.Edge, sgn float64, lo, hi float64) (float64, interval.F, bool) {
+// cells of the jet (bisected as needed, at most termConvexCells
+// enclosures, each reported to progress) and returns m and the hull of sgn lambda” over the window.
+func convexF(j regions.RelaxationJet[interval.F], e regions.Edge, sgn float64, lo, hi float64, progress func(done int)) (float64, interval.F, bool) {
 	type cell struct{ lo, hi float64 }
 	const n0 = 16
 	var stack []cell
@@ -507,13 +508,14 @@ func convexF(j regions.RelaxationJet[interval.F], e regions.Edge, sgn float64, l
 	var hull interval.F
 	first := true
 	for work := 0; len(stack) > 0; work++ {
-		if work > termConvexCells {
+		if work >= termConvexCells {
 			return 0, hull, false
 		}
 		c := stack[len(stack)-1]
 		stack = stack[:len(stack)-1]
 		x := interval.PointF(c.lo).Hull(interval.PointF(c.hi))
 		g2 := j.Eig(x, e, 2).L2
+		progress(work + 1)
 		if sgn < 0 {
 			g2 = g2.Neg()
 		}
