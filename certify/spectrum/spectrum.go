@@ -58,7 +58,7 @@ const (
 	// bits of working precision, a few minutes).
 	MaxQuadrantDigits = 5000
 	// MaxTermDigits is the most digits TermEdges accepts (relaxations of
-	// exp terms, Newton route; about 170 bits, tens of seconds).
+	// exp terms, Newton route; 179 bits, seconds to tens of seconds).
 	MaxTermDigits = 40
 	// MaxCoverDigits is the most digits Terms accepts (any family, direct
 	// float64-interval enclosures on cells, which settle a few digits
