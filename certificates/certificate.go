@@ -3,8 +3,36 @@
 // (unknown or missing fields, NaN, inconsistent entries are errors),
 // canonical hashing and atomic writing.
 //
-// Every number in a certificate is a decimal string, so nothing is lost to
-// binary floating point; the verifier parses each as an exact rational.
+// # Numbers
+//
+// Every number in a certificate is a JSON string, so nothing is lost to
+// binary floating point. It is read once, when the certificate is decoded,
+// into a typed exact value whose UnmarshalText enforces the grammar of its
+// field; an error names the field ("relaxation.cover[3].lo: ..."). The
+// grammars:
+//
+//	Decimal     plain: -?[0-9]+(\.[0-9]+)?
+//	SciDecimal  plain, or plain followed by e[+-][0-9]+ (exponent in
+//	            [-1000, 1000]), as in 5e-01 or 1e+00
+//	Fraction    plain, or p/q with p and q plain and q != 0
+//	AlphaValue  a positive Fraction, optionally after "2*pi*"
+//	ThresholdValue  a Fraction, or "none"
+//
+// No sign "+", no base prefix (0x, 0b, 0o), no NaN or infinity, no spaces,
+// at most 20000 characters. Exponents appear only where floats are written
+// exactly (the SciDecimal fields: strip and matched witness coefficients,
+// matched threshold and cell ends, width targets, the matched estimate);
+// fractions only in the relaxation's problem and normal form and in the
+// flight reduction. Each value keeps the text it was read from (== on two
+// values compares their texts), so a certificate re-encodes to the bytes
+// it was read from and its hash is over what the file says; Rat, Cmp and
+// Sign give the exact value. Certifiers write numbers with the printers of
+// this package (DecimalOf, FractionOf, FloatDecimal, SciFloat,
+// ShortDecimal, AlphaOf, NewThreshold) or read their own printed text
+// through a Parser.
+//
+// Physical input ("87 u", "0.2 ms", "1e-28 kg*m/s"), recorded as the user
+// wrote it, is read by ParseQuantity with the exact SI factors.
 package certificates
 
 import (

@@ -242,7 +242,7 @@ func ParseFraction(s string) (Fraction, error) {
 	p, q, ok := strings.Cut(s, "/")
 	if !ok {
 		d, err := ParseDecimal(s)
-		return Fraction{d.number}, err
+		return Fraction(d), err
 	}
 	if _, err := ParseDecimal(p); err != nil {
 		return Fraction{}, fracErr(s, err)
@@ -451,7 +451,10 @@ func (fs *fields) check() error {
 // reader reports a number's error without saying where it is.
 func numberPath(b []byte) string {
 	dec := json.NewDecoder(bytes.NewReader(b))
-	path, _ := findBadNumber(dec, reflect.TypeFor[Certificate](), "")
+	path, err := findBadNumber(dec, reflect.TypeFor[Certificate](), "")
+	if err != nil {
+		return "" // a JSON syntax error: the decoder's own message says where
+	}
 	return path
 }
 

@@ -179,7 +179,7 @@ func (t *ThresholdValue) UnmarshalText(b []byte) error {
 	if err != nil {
 		return err
 	}
-	*t = ThresholdValue{f.number}
+	*t = ThresholdValue(f)
 	return nil
 }
 

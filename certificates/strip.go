@@ -3,6 +3,7 @@ package certificates
 import (
 	"errors"
 	"fmt"
+	"math/big"
 	"strings"
 )
 
@@ -269,6 +270,91 @@ func (b StripBracket) validate(name string) error {
 	}
 	if b.Lower.Cmp(b.Upper.Rat()) > 0 {
 		return fmt.Errorf("%s: lower %s exceeds upper %s", name, b.Lower, b.Upper)
+	}
+	return nil
+}
+
+// StripLimits are the right-hand sides of the four inequalities the
+// brackets rest on (see Strip), computed exactly from the recorded
+// numbers: Advantage.Lower <= AdvLower, Advantage.Upper >= AdvUpper,
+// Deficit.Lower <= DefLower, Deficit.Upper >= DefUpper.
+type StripLimits struct {
+	AdvLower, AdvUpper, DefLower, DefUpper *big.Rat
+}
+
+// Limits computes the StripLimits of s from its witnesses' Rayleigh
+// enclosures, Galerkin bounds and error terms (e = alpha_rounding,
+// t = discarded_part):
+//
+//	AdvLower = max(-(AdvantageWitness.Rayleigh.Upper + e), 0)
+//	AdvUpper = -(min(GalerkinLowest, 0) - t - e)
+//	DefLower = max(DeficitWitness.Rayleigh.Lower - e, 0)
+//	DefUpper = max(GalerkinHighest, 0) + t + e
+func (s *Strip) Limits() (StripLimits, error) {
+	var fs fields
+	fs.add("strip.errors.alpha_rounding", s.Errors.AlphaRounding)
+	fs.add("strip.errors.discarded_part", s.Errors.DiscardedPart)
+	fs.add("strip.galerkin_lowest", s.GalerkinLowest)
+	fs.add("strip.galerkin_highest", s.GalerkinHighest)
+	fs.add("strip.advantage_witness.rayleigh.upper", s.AdvantageWitness.Rayleigh.Upper)
+	fs.add("strip.deficit_witness.rayleigh.lower", s.DeficitWitness.Rayleigh.Lower)
+	if err := fs.check(); err != nil {
+		return StripLimits{}, err
+	}
+	e, t := s.Errors.AlphaRounding.Rat(), s.Errors.DiscardedPart.Rat()
+	zero := new(big.Rat)
+	maxR := func(a, b *big.Rat) *big.Rat {
+		if a.Cmp(b) >= 0 {
+			return a
+		}
+		return b
+	}
+	minR := func(a, b *big.Rat) *big.Rat {
+		if a.Cmp(b) <= 0 {
+			return a
+		}
+		return b
+	}
+	add := func(a, b *big.Rat) *big.Rat { return new(big.Rat).Add(a, b) }
+	sub := func(a, b *big.Rat) *big.Rat { return new(big.Rat).Sub(a, b) }
+	return StripLimits{
+		AdvLower: maxR(new(big.Rat).Neg(add(s.AdvantageWitness.Rayleigh.Upper.Rat(), e)), zero),
+		AdvUpper: add(sub(t, minR(s.GalerkinLowest.Rat(), zero)), e),
+		DefLower: maxR(sub(s.DeficitWitness.Rayleigh.Lower.Rat(), e), zero),
+		DefUpper: add(add(maxR(s.GalerkinHighest.Rat(), zero), t), e),
+	}, nil
+}
+
+// CheckBrackets reports, exactly, whether the recorded brackets satisfy
+// the four inequalities of Limits; the error names the first that fails.
+func (s *Strip) CheckBrackets() error {
+	l, err := s.Limits()
+	if err != nil {
+		return err
+	}
+	for _, c := range []struct {
+		name   string
+		have   Decimal
+		atMost bool // have <= limit, else have >= limit
+		limit  *big.Rat
+		text   string
+	}{
+		{"advantage.lower", s.Advantage.Lower, true, l.AdvLower, "max(-(advantage witness Rayleigh upper + alpha rounding), 0)"},
+		{"deficit.lower", s.Deficit.Lower, true, l.DefLower, "max(deficit witness Rayleigh lower - alpha rounding, 0)"},
+		{"advantage.upper", s.Advantage.Upper, false, l.AdvUpper, "-(min(galerkin_lowest, 0) - discarded part - alpha rounding)"},
+		{"deficit.upper", s.Deficit.Upper, false, l.DefUpper, "max(galerkin_highest, 0) + discarded part + alpha rounding"},
+	} {
+		if !c.have.IsSet() {
+			return fmt.Errorf("strip.%s: missing number", c.name)
+		}
+		cmp := c.have.Cmp(c.limit)
+		if c.atMost && cmp > 0 || !c.atMost && cmp < 0 {
+			rel := ">="
+			if c.atMost {
+				rel = "<="
+			}
+			return fmt.Errorf("strip.%s = %s does not satisfy %s %s, which the recorded numbers give as %s", c.name, c.have, rel, c.text, c.limit.FloatString(20))
+		}
 	}
 	return nil
 }

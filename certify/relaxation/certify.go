@@ -490,6 +490,11 @@ func assemble[T interval.Real[T]](p regions.Problem, nf regions.Normal, rel regi
 	if err := n.Err(); err != nil {
 		return nil, fmt.Errorf("the certificate's numbers do not read: %v", err)
 	}
+	// The recorded cells and tails, as rounded, must support the claim (the
+	// schema's exact check, which the report applies too).
+	if err := r.SupportsClaim(); err != nil {
+		return nil, fmt.Errorf("the rounded record does not support the claim: %v", err)
+	}
 	return &certificates.Certificate{Kind: certificates.KindRelaxation, Relaxation: r}, nil
 }
 

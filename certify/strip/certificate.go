@@ -46,27 +46,16 @@ func (r *Result) Certificate() (*certificates.Certificate, error) {
 	if err := n.Err(); err != nil {
 		return nil, fmt.Errorf("strip: cannot certify: %v", err)
 	}
-	e, t, gl, gh := eD.Rat(), tD.Rat(), glD.Rat(), ghD.Rat()
-	rMinHi, rMaxLo := advR.Upper.Rat(), defR.Lower.Rat()
-	zero := new(big.Rat)
-	ratMax := func(a, b *big.Rat) *big.Rat {
-		if a.Cmp(b) >= 0 {
-			return a
-		}
-		return b
+	// The brackets follow from the recorded numbers by the schema's own
+	// exact rule (certificates.Strip.Limits), rounded outward.
+	rec := &certificates.Strip{GalerkinLowest: glD, GalerkinHighest: ghD,
+		Errors:           certificates.StripErrors{AlphaRounding: eD, DiscardedPart: tD},
+		AdvantageWitness: certificates.StripWitness{Rayleigh: advR}, DeficitWitness: certificates.StripWitness{Rayleigh: defR}}
+	lim, err := rec.Limits()
+	if err != nil {
+		return nil, fmt.Errorf("strip: cannot certify: %v", err)
 	}
-	ratMin := func(a, b *big.Rat) *big.Rat {
-		if a.Cmp(b) <= 0 {
-			return a
-		}
-		return b
-	}
-	add := func(a, b *big.Rat) *big.Rat { return new(big.Rat).Add(a, b) }
-	sub := func(a, b *big.Rat) *big.Rat { return new(big.Rat).Sub(a, b) }
-	advLo := ratMax(new(big.Rat).Neg(add(rMinHi, e)), zero)
-	advHi := add(sub(t, ratMin(gl, zero)), e)
-	defLo := ratMax(sub(rMaxLo, e), zero)
-	defHi := add(add(ratMax(gh, zero), t), e)
+	advLo, advHi, defLo, defHi := lim.AdvLower, lim.AdvUpper, lim.DefLower, lim.DefUpper
 	if advLo.Cmp(advHi) > 0 || defLo.Cmp(defHi) > 0 {
 		return nil, errors.New("strip: cannot certify: the recorded numbers give an empty bracket")
 	}

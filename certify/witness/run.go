@@ -7,6 +7,7 @@ import (
 	"math/big"
 	"strconv"
 
+	"wedgebound/certificates"
 	"wedgebound/interval"
 )
 
@@ -43,12 +44,18 @@ type Result struct {
 	Digits   int
 }
 
-// roundWidth rounds b to 3 significant decimal digits, as an exact rational.
-func roundWidth(b float64) *big.Rat {
-	s := strconv.FormatFloat(b, 'e', 2, 64)
-	f, _ := strconv.ParseFloat(s, 64)
-	r, _ := new(big.Rat).SetString(strconv.FormatFloat(f, 'f', -1, 64))
-	return r
+// roundWidth rounds b to 3 significant decimal digits, as an exact rational
+// (the shortest decimal of the nearest float64, certificates.ShortDecimal).
+func roundWidth(b float64) (*big.Rat, error) {
+	f, err := strconv.ParseFloat(strconv.FormatFloat(b, 'e', 2, 64), 64)
+	if err != nil {
+		return nil, fmt.Errorf("witness: width %v: %v", b, err)
+	}
+	d, err := certificates.ShortDecimal(f)
+	if err != nil {
+		return nil, fmt.Errorf("witness: width %v: %v", b, err)
+	}
+	return d.Rat(), nil
 }
 
 // MakeBasis lists the basis functions of the options: for every width,
@@ -63,7 +70,10 @@ func MakeBasis(o Options) ([]Func, error) {
 	}
 	var out []Func
 	for b := o.MinWidth; b <= o.MaxWidth*(1+1e-9); b *= o.Ratio {
-		w := roundWidth(b)
+		w, err := roundWidth(b)
+		if err != nil {
+			return nil, err
+		}
 		for m := 0; m <= o.MaxPower; m++ {
 			for _, c := range ch {
 				out = append(out, Func{Chirp: c, Power: m, Width: w})
@@ -110,7 +120,11 @@ func Run(o Options) (*Result, error) {
 	}
 	coef := make([]*big.Rat, len(x))
 	for i, v := range x {
-		coef[i], _ = new(big.Rat).SetString(strconv.FormatFloat(v, 'f', -1, 64))
+		d, err := certificates.ShortDecimal(v)
+		if err != nil {
+			return nil, fmt.Errorf("witness: coefficient %d: %v", i, err)
+		}
+		coef[i] = d.Rat()
 	}
 	return ProveWith(basis, coef, est, o)
 }

@@ -2,7 +2,6 @@ package main
 
 import (
 	"fmt"
-	"math/big"
 	"strings"
 
 	"wedgebound/certificates"
@@ -15,53 +14,7 @@ import (
 // the four inequalities the brackets rest on (see certificates.Strip):
 // a certificate failing them cannot pass verification, so the report
 // refuses to restate it. It is no substitute for wedgecheck.
-func stripConsistent(s *certificates.Strip) error {
-	zero := new(big.Rat)
-	e, t := rat(s.Errors.AlphaRounding), rat(s.Errors.DiscardedPart)
-	maxR := func(a, b *big.Rat) *big.Rat {
-		if a.Cmp(b) > 0 {
-			return a
-		}
-		return b
-	}
-	minR := func(a, b *big.Rat) *big.Rat {
-		if a.Cmp(b) < 0 {
-			return a
-		}
-		return b
-	}
-	add := func(xs ...*big.Rat) *big.Rat {
-		r := new(big.Rat)
-		for _, x := range xs {
-			r.Add(r, x)
-		}
-		return r
-	}
-	neg := func(x *big.Rat) *big.Rat { return new(big.Rat).Neg(x) }
-	checks := []struct {
-		name      string
-		have      certificates.Decimal
-		atMost    bool // have <= limit, else have >= limit
-		limit     *big.Rat
-		limitText string
-	}{
-		{"advantage.lower", s.Advantage.Lower, true, maxR(neg(add(rat(s.AdvantageWitness.Rayleigh.Upper), e)), zero), "max(-(advantage witness Rayleigh upper + alpha rounding), 0)"},
-		{"deficit.lower", s.Deficit.Lower, true, maxR(add(rat(s.DeficitWitness.Rayleigh.Lower), neg(e)), zero), "max(deficit witness Rayleigh lower - alpha rounding, 0)"},
-		{"advantage.upper", s.Advantage.Upper, false, add(neg(minR(rat(s.GalerkinLowest), zero)), t, e), "-(min(galerkin_lowest, 0) - discarded part - alpha rounding)"},
-		{"deficit.upper", s.Deficit.Upper, false, add(maxR(rat(s.GalerkinHighest), zero), t, e), "max(galerkin_highest, 0) + discarded part + alpha rounding"},
-	}
-	for _, c := range checks {
-		cmp := rat(c.have).Cmp(c.limit)
-		if c.atMost && cmp > 0 || !c.atMost && cmp < 0 {
-			rel := ">="
-			if c.atMost {
-				rel = "<="
-			}
-			return fmt.Errorf("strip.%s = %s does not satisfy %s %s, which the recorded numbers give as %s", c.name, c.have, rel, c.limitText, c.limit.FloatString(20))
-		}
-	}
-	return nil
-}
+func stripConsistent(s *certificates.Strip) error { return s.CheckBrackets() }
 
 // stripAlphaText writes alpha as recorded: its exact value and, for a value
 // from physical units, the units and the enclosure.

@@ -121,7 +121,7 @@ func runSweep(args []string, stdout, stderr io.Writer) int {
 			fmt.Fprintf(stderr, "wedgebound sweep: alpha %s: %v\n", s, err)
 			return 1
 		}
-		x, _ := strconv.ParseFloat(s, 64)
+		x := a.Enclosure().Mid().Lo() // the plot's abscissa (the number is exact in alpha)
 		pt := sweepPoint{alpha: s, x: x, res: res}
 		if *withMatched {
 			mr, err := matched.Compute(a, matched.Options{})
@@ -138,8 +138,9 @@ func runSweep(args []string, stdout, stderr io.Writer) int {
 				return 1
 			}
 			pt.mLower, pt.mUpper = mc.Matched.Lower.String(), mc.Matched.Upper.String()
-			pt.mLo, _ = strconv.ParseFloat(pt.mLower, 64)
-			pt.mHi, _ = strconv.ParseFloat(pt.mUpper, 64)
+			// The plot's points: the nearest float64 of each exact end.
+			pt.mLo, _ = mc.Matched.Lower.Rat().Float64()
+			pt.mHi, _ = mc.Matched.Upper.Rat().Float64()
 		}
 		rows = append(rows, pt)
 	}
@@ -169,8 +170,12 @@ func runSweep(args []string, stdout, stderr io.Writer) int {
 		best.res.Advantage.Lower, best.alpha)
 	if ub != nil {
 		fmt.Fprintf(stdout, "certified upper bound read from %s: c_bm <= %s (%s)\n", ub.file, ub.bound, ub.what)
-		lo, _ := new(big.Rat).SetString(best.res.Advantage.Lower)
-		if lo != nil && lo.Cmp(ub.rat) > 0 {
+		lo, err := certificates.ParseDecimal(best.res.Advantage.Lower)
+		if err != nil {
+			fmt.Fprintf(stderr, "wedgebound sweep: the advantage's lower end: %v\n", err)
+			return 1
+		}
+		if lo.Cmp(ub.rat) > 0 {
 			fmt.Fprintf(stderr, "wedgebound sweep: the certified lower bound %s exceeds the bound %s read from %s, so one of the two is wrong\n", best.res.Advantage.Lower, ub.bound, ub.file)
 			return 1
 		}

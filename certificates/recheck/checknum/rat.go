@@ -6,21 +6,10 @@ import (
 	"wedgebound/interval"
 )
 
-// RatText writes r as an exact decimal when it terminates, else as p/q
-// (which certificates.Dec rejects, so callers use terminating values).
-func RatText(r *big.Rat) string {
-	for d := 0; d <= 60; d++ {
-		s := r.FloatString(d)
-		if t, ok := new(big.Rat).SetString(s); ok && t.Cmp(r) == 0 {
-			return s
-		}
-	}
-	return r.RatString()
-}
-
-// RatDecimal writes r as a decimal with 6 significant digits, rounded up.
+// RatDecimal writes r as a decimal with 6 significant digits, rounded up
+// (r is first rounded up to 512 bits, so the result is >= r).
 func RatDecimal(r *big.Rat) string {
-	f := new(big.Float).SetPrec(200).SetRat(r)
+	f := new(big.Float).SetPrec(512).SetMode(big.ToPositiveInf).SetRat(r)
 	return interval.DecimalUp(f, 6)
 }
 

@@ -157,7 +157,10 @@ func (Checker) Check(c *certificates.Certificate, opt recheck.Options) (*recheck
 			den = den.Add(coef[r].Sqr())
 		}
 		rq := num.Pad(interval.PointF(quad.Hi())).Quo(den)
-		lo, hi, _ := interval.Decimals(rq, 17)
+		lo, hi, err := interval.Decimals(rq, 17)
+		if err != nil {
+			lo, hi = "-inf", "inf" // not enclosed: the checks below fail
+		}
 		det.WitnessRayleigh = "[" + lo + ", " + hi + "]"
 		claim := w.Rayleigh.Rat()
 		switch {

@@ -414,7 +414,7 @@ func (v *verifier) checkRecordedCell(c certificates.Cell, n cellNumbers, r *cell
 	}
 	for j, e := range r.encs {
 		if miss(e[0], e[1]) {
-			return report(e[0], e[1], fmt.Sprintf("for every s in [%s, %s]", checknum.RatText(r.encAt[j][0]), checknum.RatText(r.encAt[j][1])))
+			return report(e[0], e[1], fmt.Sprintf("for every s in [%s, %s]", certificates.FractionText(r.encAt[j][0]), certificates.FractionText(r.encAt[j][1])))
 		}
 	}
 	for j, m := range r.mids {
@@ -517,10 +517,10 @@ func (v *verifier) cell(lo, hi *big.Rat) cellResult {
 				msg = "the verifier's enclosure is unbounded"
 			} else if v.edge == Lower {
 				by.Sub(by, eLo)
-				msg = fmt.Sprintf("not proved: on s in [%s, %s] the verifier's enclosure of lambda_min reaches down to %s, below -%s", checknum.RatText(p.a), checknum.RatText(p.b), interval.DecimalDown(eLo, 10), v.rel.Claim.Bound)
+				msg = fmt.Sprintf("not proved: on s in [%s, %s] the verifier's enclosure of lambda_min reaches down to %s, below -%s", certificates.FractionText(p.a), certificates.FractionText(p.b), interval.DecimalDown(eLo, 10), v.rel.Claim.Bound)
 			} else {
 				by.Sub(eHi, by)
-				msg = fmt.Sprintf("not proved: on s in [%s, %s] the verifier's enclosure of lambda_max reaches up to %s, above %s", checknum.RatText(p.a), checknum.RatText(p.b), interval.DecimalUp(eHi, 10), v.rel.Claim.Bound)
+				msg = fmt.Sprintf("not proved: on s in [%s, %s] the verifier's enclosure of lambda_max reaches up to %s, above %s", certificates.FractionText(p.a), certificates.FractionText(p.b), interval.DecimalUp(eHi, 10), v.rel.Claim.Bound)
 			}
 			f := &failure{Message: msg, Bound: true}
 			if eLo != nil && eHi != nil {
@@ -599,7 +599,7 @@ func (v *verifier) checkTail(side int) {
 		if ok {
 			v.addWorst(end)
 			if cur.Cmp(from) != 0 {
-				v.note(fmt.Sprintf("%s: the verifier's tail lemma holds from s = %s; it covered [%s, %s] with its own cells", name, checknum.RatText(cur), checknum.RatText(minRat(from, cur)), checknum.RatText(maxRat(from, cur))))
+				v.note(fmt.Sprintf("%s: the verifier's tail lemma holds from s = %s; it covered [%s, %s] with its own cells", name, certificates.FractionText(cur), certificates.FractionText(minRat(from, cur)), certificates.FractionText(maxRat(from, cur))))
 			}
 			return
 		}
@@ -615,7 +615,7 @@ func (v *verifier) checkTail(side int) {
 				}
 			}
 			f := failure{Where: name, Lo: t.From.String(), order: order, s: from, Bound: true,
-				Message: fmt.Sprintf("not proved: the verifier's tail lemma at s = %s gives only %s %s, short of the claim", checknum.RatText(cur), map[Edge]string{Lower: "lambda_min >=", Upper: "lambda_max <="}[v.edge], fmtF(end, 10))}
+				Message: fmt.Sprintf("not proved: the verifier's tail lemma at s = %s gives only %s %s, short of the claim", certificates.FractionText(cur), map[Edge]string{Lower: "lambda_min >=", Upper: "lambda_max <="}[v.edge], fmtF(end, 10))}
 			if by != nil {
 				f.By = interval.DecimalUp(by, 4)
 			}
