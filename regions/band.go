@@ -35,22 +35,30 @@ func newBandTerm[T interval.Real[T]](like T, params map[string]string) (Term[T],
 			return nil, fmt.Errorf("band term needs from < to, not %s >= %s", params["from"], params["to"])
 		}
 	}
+	if inf {
+		return newUpperBand(like, "band", map[string]string{"from": RatString(a), "to": "inf"}, a), nil
+	}
 	aT, af := ratT(like, a)
 	ea := newEdge(aT, af, false)
 	norm := map[string]string{"from": RatString(a), "to": "inf"}
-	if inf {
-		if a.Sign() == 0 {
-			return newPWL(like, "band", norm, "0", nil, like.Int(0), 0, true, []edgeRef[T]{{coef: like.Int(-1), edge: ea}}), nil
-		}
-		p := []piece[T]{{x0: like.Int(0), L: aT, h0: like.Int(-1), h1: like.Int(-1), flat: true}}
-		return newPWL(like, "band", norm, RatString(a), p, aT, af, true, []edgeRef[T]{{coef: like.Int(-1), edge: ea}}), nil
-	}
 	bT, bf := ratT(like, b)
 	norm["to"] = RatString(b)
 	L := bT.Sub(aT)
 	p := []piece[T]{{x0: aT, L: L, h0: like.Int(1), h1: like.Int(1), flat: true}}
 	edges := []edgeRef[T]{{coef: like.Int(1), edge: newEdge(bT, bf, false)}, {coef: like.Int(-1), edge: ea}}
 	return newPWL(like, "band", norm, RatString(a), p, interval.Upper(L), bf, false, edges), nil
+}
+
+// newUpperBand builds h(xp) = 1 for xp > a (the band [a, inf)) as
+// 1 - [0, a): its D is A(s) - M_{++}[[0, a)] and its edge term -E(a, s).
+func newUpperBand[T interval.Real[T]](like T, kind string, norm map[string]string, a *big.Rat) Term[T] {
+	aT, af := ratT(like, a)
+	ea := newEdge(aT, af, false)
+	if a.Sign() == 0 {
+		return newPWL(like, kind, norm, "0", nil, like.Int(0), 0, true, []edgeRef[T]{{coef: like.Int(-1), edge: ea}})
+	}
+	p := []piece[T]{{x0: like.Int(0), L: aT, h0: like.Int(-1), h1: like.Int(-1), flat: true}}
+	return newPWL(like, kind, norm, RatString(a), p, aT, af, true, []edgeRef[T]{{coef: like.Int(-1), edge: ea}})
 }
 
 // knot parses a profile knot: a decimal in [0, maxKnot].

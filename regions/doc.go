@@ -392,17 +392,36 @@
 // at |s| of a few thousand. Every value lies above the published estimates
 // of the backflow constant (0.03845), as it must.
 //
-// Not done yet. (1) Vertex inside the half-plane (d > 0): every admissible
-// profile vanishes on (0, u0) with u0 > 0, so its Fourier transform carries
-// the factor e^{i u0 w} and M_{+-} becomes an oscillatory integral of the
-// kind of the edge terms E(c, s), K(c, s) (a shifted or cut-off exponential
-// e^{-k (xp - u0)} on xp >= u0 has the same jump at u0 as a band). The
-// certifier side exists (bands, hats); the verifier needs its own route for
-// these integrals (e.g. the tau-form turned to tau = 1 + i y, where
-// e^{2 i c tau} decays, which loses a factor e^{pi |s|/2} to cancellation
-// for s < 0 and so needs its own saddle-point path there) before such
-// certificates can pass. (2) Relaxations beyond squeeze invariance: see
-// the next section (float exploration only, nothing certified).
+// Vertex inside the half-plane (d > 0, u0 = d^2/(4ab) > 0). Every
+// admissible profile vanishes on (0, u0), so its Fourier transform carries
+// the factor e^{i u0 w} and M_{+-} is an oscillatory integral of the kind
+// of the edge terms E(c, s), K(c, s). Bands and steps (step.go: h = 1 on
+// xp > from, the band [from, inf) with finite parameters, the form
+// certificates record) are certified (certify --term, --terms, and the
+// default family for such geometries: bands [k0, 2k0), [2k0, 4k0) and the
+// step xp > 4k0, k0 = u0 rounded up to a 6-digit decimal) and verified by
+// the verifier's own route (certificates/recheck/relaxation: band.go,
+// step.go, edge.go, diag.go). Float bounds of the search for the geometry
+// of testdata/problems/vertex-inside.json (u0 = 1/4; weight box 20, check
+// grid on [-300, 300]; seen here, not a published source):
+//
+//	terms                                                  float bound
+//	step 1/4                                                 0.143427
+//	bands [1/4,1/2), [1/2,1), step 1                         0.112558
+//	bands [1/4,.35), [.35,.5), [.5,1), [1,2), step 2         0.098654
+//	hats (1/4,.3,1/2), (.3,1/2,1), (1/2,1,2), step 1         0.105262
+//
+// The default (second row) is certified at 0.112578 in testdata/vertex-inside,
+// between the vertex-on-boundary bound of the same wedge (0.0408) and the
+// bare quadrant's 0.155940, as it must be.
+//
+// Not done yet. (1) Hats are not known to the verifier (their kink terms
+// K(c, s) would run on the same turned paths as E(c, s), with the
+// amplitude -1/(4 tau^2) in place of 1/(2i tau), and their diagonal needs
+// the transform of a linear piece); a shifted exponential e^{-k (xp - u0)}
+// on xp >= u0 was not built (its jump at u0 is that of a step, so bands and
+// steps already cover its role). (2) Relaxations beyond squeeze invariance:
+// see the next section (float exploration only, nothing certified).
 //
 // # Beyond squeeze invariance (float exploration, nothing here is proved)
 //

@@ -325,7 +325,7 @@ func TestNewTermErrors(t *testing.T) {
 	if tm.Kind() != "exp" || tm.Params()["k"] != "150" || tm.Start() != "0" {
 		t.Errorf("exp term reports kind %q params %v start %q", tm.Kind(), tm.Params(), tm.Start())
 	}
-	if k := TermKinds(); strings.Join(k, ",") != "band,exp,hat" {
+	if k := TermKinds(); strings.Join(k, ",") != "band,exp,hat,step" {
 		t.Errorf("TermKinds() = %v", k)
 	}
 }

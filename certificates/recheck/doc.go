@@ -34,6 +34,15 @@
 //     aliasing), and beyond the cut the geometric series of 1/(1 - q e^{-t})
 //     summed with a bounded remainder (the certifier bounds the cut-off
 //     piece only).
+//   - Band and step terms, edge integrals E(c, s) (c > 0): Clenshaw-Curtis
+//     on the tau-form, on paths turned to tau = 1 + i e^x (s >= -1) or down
+//     to 1 - i L and along the diagonal through the stationary point
+//     sqrt(1 + |s|/c) (s < -1) (the certifier uses Gauss-Legendre in
+//     t = -log r on saddle paths chosen per window); diagonal entries on the
+//     real v-line or the line moved to Im v = -+0.6, with the profile's
+//     transform through (e^z - 1)/z (the certifier: psi-series per linear
+//     piece on its own paths); tail lemmas of its own (path bounds and a
+//     moved line; the certifier uses van der Corput's lemma).
 //   - Cells: the recorded cover, split at the verifier's own regime
 //     boundaries and bisected when undecided; on each piece the mean-value
 //     form (the entries over the piece from their midpoint values and

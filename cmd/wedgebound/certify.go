@@ -1,11 +1,14 @@
 package main
 
 import (
+	"bytes"
+	"encoding/json"
 	"errors"
 	"fmt"
 	"io"
 	"math"
 	"os"
+	"sort"
 	"strconv"
 	"strings"
 
@@ -27,8 +30,10 @@ func runCertify(args []string, stdout, stderr io.Writer) int {
 	preset := fs.String("preset", "", "named problem: "+strings.Join(regions.PresetNames(), ", "))
 	problemFile := fs.String("problem", "", "JSON problem file {\"vertex\", \"rays\", \"halfplane\", \"edge\"}")
 	out := fs.String("out", "", helpOut+" (required)")
-	exps := fs.String("exp", "0.03,0.13,0.79,5.3,40,300,1000,3000", "comma-separated decay rates k of the exponential profiles e^{-k xp} (\"none\" for the bare quadrant)")
-	weights := fs.String("weights", "", "comma-separated exact weights for the profiles (default: searched)")
+	exps := fs.String("exp", strings.Join(relaxation.DefaultExpRates, ","), "comma-separated decay rates k of the exponential profiles e^{-k xp} (\"none\" for the bare quadrant); the default is used only when the geometry admits profiles from xp = 0, other geometries get the default bands and step of their threshold")
+	weights := fs.String("weights", "", "comma-separated exact weights for the --exp profiles (default: searched)")
+	termFlags := fs.StringArray("term", nil, "one relaxation term KIND,NAME=VALUE,...[,weight=W] (repeatable; kinds: "+strings.Join(regions.TermKinds(), ", ")+"), e.g. band,from=0.25,to=0.5 or step,from=1; give a weight for every term or for none (searched)")
+	termsFile := fs.String("terms", "", "JSON file with relaxation terms [{\"kind\":..., \"params\":{...}, \"weight\":...}] (weights optional: all or none)")
 	weightBound := fs.Float64("weight-bound", 0, "bound on the searched weights (0: max(50, k_max/15))")
 	var margin float64
 	addTolerance(fs, &margin, 2e-5, "how far above the float estimate the proved bound may lie (the cover aims at estimate + tolerance)", "margin")
@@ -92,31 +97,71 @@ func runCertify(args []string, stdout, stderr io.Writer) int {
 		}
 	}
 	cfg := relaxation.Config{Problem: p, WeightBound: *weightBound, Margin: margin, Workers: *workers, Prec: uint(*prec)}
-	var ks, ws []string
-	if s := strings.TrimSpace(*exps); s != "" && s != "none" {
-		ks = splitList(s)
-	}
-	if *weights != "" {
-		ws = splitList(*weights)
-		if len(ws) != len(ks) {
-			return fail("--weights: %d weights given for %d terms", len(ws), len(ks))
+	given := 0
+	for _, b := range []bool{fs.Changed("exp"), len(*termFlags) > 0, *termsFile != ""} {
+		if b {
+			given++
 		}
 	}
-	if err := checkCertifyInput(p, ks, ws); err != nil {
-		return fail("%v", err)
+	if given > 1 {
+		return fail("give at most one of --exp, --term and --terms")
 	}
-	for i, k := range ks {
-		kd, err := certificates.ParseDecimal(k)
+	if *weights != "" && (len(*termFlags) > 0 || *termsFile != "") {
+		return fail("--weights goes with --exp; give the weights of --term and --terms terms as weight=W or \"weight\"")
+	}
+	var specs []termSpec
+	var err error
+	switch {
+	case len(*termFlags) > 0:
+		if specs, err = certifyTermFlags(*termFlags); err != nil {
+			return fail("%v", err)
+		}
+	case *termsFile != "":
+		data, err := os.ReadFile(*termsFile)
 		if err != nil {
-			return fail("--exp %s: %v", k, err)
+			return fail("%v", err)
 		}
-		t := certificates.Term{Kind: "exp", Params: map[string]certificates.Decimal{"k": kd}}
-		if ws != nil {
-			if t.Weight, err = certificates.ParseDecimal(ws[i]); err != nil {
-				return fail("--weights: weight %d: %v", i+1, err)
+		if specs, err = certifyTermsFile(data); err != nil {
+			return fail("%s: %v", *termsFile, err)
+		}
+	default:
+		nf, err := regions.Normalize(p)
+		if err != nil {
+			return fail("the problem: %v", err)
+		}
+		u0, ok := nf.Threshold()
+		if !fs.Changed("exp") && !(ok && u0.Sign() == 0) {
+			for _, t := range relaxation.DefaultTerms(u0, ok) {
+				specs = append(specs, termSpec{Kind: t.Kind, Params: t.ParamText()})
+			}
+			if *weights != "" {
+				return fail("--weights goes with --exp; this geometry's default terms are %s", describeTerms(specs))
+			}
+			break
+		}
+		var ks, ws []string
+		if s := strings.TrimSpace(*exps); s != "" && s != "none" {
+			ks = splitList(s)
+		}
+		if *weights != "" {
+			ws = splitList(*weights)
+			if len(ws) != len(ks) {
+				return fail("--weights: %d weights given for %d terms", len(ws), len(ks))
 			}
 		}
-		cfg.Terms = append(cfg.Terms, t)
+		for i, k := range ks {
+			t := termSpec{Kind: "exp", Params: map[string]string{"k": k}}
+			if ws != nil {
+				t.Weight = ws[i]
+			}
+			specs = append(specs, t)
+		}
+	}
+	if err := checkCertifyInput(p, specs); err != nil {
+		return fail("%v", err)
+	}
+	if cfg.Terms, err = certifyTerms(specs); err != nil {
+		return fail("%v", err)
 	}
 	if *shard != "" {
 		var i, n int
@@ -177,32 +222,128 @@ func splitList(s string) []string {
 }
 
 // checkCertifyInput rejects, before any work, what relaxation.Run would only
-// find later: a problem without a normal form, profiles the geometry does
-// not admit, decay rates or weights that are not finite decimals, and a
-// weight count that does not match. Such input is the user's (exit 2).
-func checkCertifyInput(p regions.Problem, ks, weights []string) error {
+// find later: a problem without a normal form, unknown families or bad
+// parameters, profiles the geometry does not admit, weights that are not
+// finite decimals, and weights given for some terms but not all. Such
+// input is the user's (exit 2).
+func checkCertifyInput(p regions.Problem, terms []termSpec) error {
 	nf, err := regions.Normalize(p)
 	if err != nil {
 		return fmt.Errorf("the problem: %v", err)
 	}
-	if u0, ok := nf.Threshold(); len(ks) > 0 && (!ok || u0.Sign() != 0) {
-		return errors.New("this geometry leaves only xp >= d^2/(4ab) > 0 of quadrant III free, but the exponential profiles reach xp = 0; certify the bare quadrant (--exp none) instead")
-	}
-	for _, k := range ks {
-		if _, err := regions.NewTerm(interval.PointF(0), "exp", map[string]string{"k": k}); err != nil {
-			return fmt.Errorf("--exp %s: %v", k, err)
+	u0, ok := nf.Threshold()
+	weighted := 0
+	for i, t := range terms {
+		rt, err := regions.NewTerm(interval.PointF(0), t.Kind, t.Params)
+		if err != nil {
+			return fmt.Errorf("term %d (%s): %v", i+1, t.Kind, err)
+		}
+		if err := regions.Admissible(rt.Kind(), rt.Start(), u0, ok); err != nil {
+			if t.Kind == "exp" {
+				return fmt.Errorf("this geometry leaves only xp >= d^2/(4ab) > 0 of quadrant III free, but the exponential profiles reach xp = 0; use bands and steps (--term band,from=...,to=... or --term step,from=...; the default does so) or the bare quadrant (--exp none)")
+			}
+			return fmt.Errorf("term %d: %v", i+1, err)
+		}
+		for name, v := range t.Params {
+			if _, err := certificates.ParseDecimal(v); err != nil {
+				return fmt.Errorf("term %d (%s): parameter %s: %v (certificates take finite decimals; the band [a, inf) is step,from=a)", i+1, t.Kind, name, err)
+			}
+		}
+		if t.Weight != "" {
+			weighted++
+			if _, err := regions.ParseRat(t.Weight); err != nil {
+				return fmt.Errorf("term %d weight: %v", i+1, err)
+			}
 		}
 	}
-	if len(weights) == 0 {
-		return nil
-	}
-	if len(weights) != len(ks) {
-		return fmt.Errorf("--weights: %d weights given for %d profiles", len(weights), len(ks))
-	}
-	for i, w := range weights {
-		if _, err := regions.ParseRat(w); err != nil {
-			return fmt.Errorf("--weights: weight %d: %v", i+1, err)
-		}
+	if weighted != 0 && weighted != len(terms) {
+		return fmt.Errorf("weights given for %d of %d terms: give all of them or none (searched)", weighted, len(terms))
 	}
 	return nil
+}
+
+// certifyTermFlags reads --term flags KIND,NAME=VALUE,...[,weight=W].
+func certifyTermFlags(flags []string) ([]termSpec, error) {
+	var out []termSpec
+	for _, f := range flags {
+		parts := strings.Split(f, ",")
+		t := termSpec{Kind: strings.TrimSpace(parts[0]), Params: map[string]string{}}
+		for _, p := range parts[1:] {
+			name, value, ok := strings.Cut(p, "=")
+			name, value = strings.TrimSpace(name), strings.TrimSpace(value)
+			if !ok || name == "" || value == "" {
+				return nil, fmt.Errorf("--term %q: %q is not NAME=VALUE", f, p)
+			}
+			if name == "weight" {
+				t.Weight = value
+				continue
+			}
+			if _, dup := t.Params[name]; dup {
+				return nil, fmt.Errorf("--term %q: %s given twice", f, name)
+			}
+			t.Params[name] = value
+		}
+		out = append(out, t)
+	}
+	return out, nil
+}
+
+// certifyTermsFile reads a JSON array of terms strictly (weights optional).
+func certifyTermsFile(data []byte) ([]termSpec, error) {
+	dec := json.NewDecoder(bytes.NewReader(data))
+	dec.DisallowUnknownFields()
+	var specs []termSpec
+	if err := dec.Decode(&specs); err != nil {
+		return nil, fmt.Errorf("malformed terms: %v", err)
+	}
+	if len(specs) == 0 {
+		return nil, errors.New("no terms given")
+	}
+	return specs, nil
+}
+
+// certifyTerms turns checked term specs into certificate terms (exact
+// decimals; an empty weight stays unset, to be searched).
+func certifyTerms(specs []termSpec) ([]certificates.Term, error) {
+	out := make([]certificates.Term, len(specs))
+	for i, s := range specs {
+		t := certificates.Term{Kind: s.Kind, Params: map[string]certificates.Decimal{}}
+		for name, v := range s.Params {
+			d, err := certificates.ParseDecimal(v)
+			if err != nil {
+				return nil, fmt.Errorf("term %d (%s): parameter %s: %v", i+1, s.Kind, name, err)
+			}
+			t.Params[name] = d
+		}
+		if s.Weight != "" {
+			w, err := certificates.ParseDecimal(s.Weight)
+			if err != nil {
+				return nil, fmt.Errorf("term %d weight: %v", i+1, err)
+			}
+			t.Weight = w
+		}
+		out[i] = t
+	}
+	return out, nil
+}
+
+// describeTerms writes terms as --term flags.
+func describeTerms(terms []termSpec) string {
+	var parts []string
+	for _, t := range terms {
+		names := make([]string, 0, len(t.Params))
+		for n := range t.Params {
+			names = append(names, n)
+		}
+		sort.Strings(names)
+		s := t.Kind
+		for _, n := range names {
+			s += "," + n + "=" + t.Params[n]
+		}
+		parts = append(parts, s)
+	}
+	if len(parts) == 0 {
+		return "none (the bare quadrant)"
+	}
+	return strings.Join(parts, " ")
 }

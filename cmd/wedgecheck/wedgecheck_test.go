@@ -354,8 +354,8 @@ func TestBadFiles(t *testing.T) {
 		{"unknown field", bytes.Replace(good, []byte(`"terms"`), []byte(`"extra": 1, "terms"`), 1), exitMalformed, "unknown field"},
 		{"claimed bound below the proved one", reseal(func(c *certificates.Certificate) { c.Relaxation.Claim.Bound = certificates.MustDecimal("0.15") }), exitFail, "the claim is false"},
 		{"unknown term kind", reseal(func(c *certificates.Certificate) {
-			c.Relaxation.Terms = []certificates.Term{{Kind: "band", Params: map[string]certificates.Decimal{"a": certificates.MustDecimal("1"), "b": certificates.MustDecimal("2")}, Weight: certificates.MustDecimal("0.5")}}
-		}), exitFail, `unknown term kind "band"`},
+			c.Relaxation.Terms = []certificates.Term{{Kind: "hat", Params: map[string]certificates.Decimal{"left": certificates.MustDecimal("1"), "peak": certificates.MustDecimal("2"), "right": certificates.MustDecimal("3")}, Weight: certificates.MustDecimal("0.5")}}
+		}), exitFail, `unknown term kind "hat"`},
 		{"unknown exp parameter", reseal(func(c *certificates.Certificate) {
 			c.Relaxation.Terms = []certificates.Term{{Kind: "exp", Params: map[string]certificates.Decimal{"q": certificates.MustDecimal("1")}, Weight: certificates.MustDecimal("0.5")}}
 		}), exitFail, "parameter k"},

@@ -21,18 +21,33 @@
 //     J(s) = sum_n (-1)^n/(n + 1/2 + is), summed by Boole's formula for
 //     alternating series with an explicit remainder (Euler polynomials,
 //     tangent numbers; quadj.go), J'(s) likewise, over whole cells in a
-//     centred form; D in closed form; and the exp terms' off-diagonal
-//     integral I(s) by composite
-//     Clenshaw-Curtis quadrature on a ray turned by +-pi/3, with a remainder
-//     bound of its own (checknum.Rule.Bound) from integrand bounds on boxes covering
-//     each panel's Bernstein ellipse, and a summed geometric series with a
-//     proved remainder beyond the cut (expTerm).
+//     centred form; and each term's D and B through its family
+//     (termSymbol; one file per family, registered with registerFamily:
+//     start of support, symbol, tail lemma, limit of D). exp (expterm.go):
+//     D in closed form, the off-diagonal integral I(s) by composite
+//     Clenshaw-Curtis quadrature on a ray turned by +-pi/3, with a
+//     remainder bound of its own (checknum.Rule.Bound) from integrand
+//     bounds on boxes covering each panel's Bernstein ellipse, and a summed
+//     geometric series with a proved remainder beyond the cut. band and
+//     step (band.go, step.go): the jump integrals E(c, s) on tau-paths
+//     turned up (s >= -1) or down and through the stationary point of the
+//     phase (s < -1), y = e^x on the vertical legs (edge.go); the diagonal
+//     entry on the real v-line, moved to Im v = -+0.6 away from s = 0
+//     (diag.go); both on the generic Clenshaw-Curtis path rule of
+//     pathrule.go, with the parts cut off bounded explicitly; E(0, s) =
+//     -(i/2pi) J(s).
 //   - On every cell, an enclosure of the extreme eigenvalue over the whole
 //     cell in mean-value form (Model.Piece), bisected when it cannot decide,
 //     with a big-float retry when float64 intervals cannot.
 //   - On both tails, a lemma of its own (Model.Tail): |J| <= pi/(4|a|),
-//     |B_exp| <= C(k)/|a| by one integration by parts, exponential bounds of
-//     D, and monotonicity of the eigenvalues in A, D and |B|.
+//     |B_exp| <= C(k)/|a| by one integration by parts, for jumps at c > 0
+//     bounds from the turned paths (edgeTailB: O(1/S) for s >= S and
+//     O(sqrt(c/S)) for s <= -S, with |e^{i phase}| <= 1 proved along the
+//     path through the stationary point), the band diagonal by moving the
+//     line (diagTail), exponential bounds of the exp D, and monotonicity of
+//     the eigenvalues in A, D and |B|. Where the lemma is too weak at the
+//     recorded tail start, the verifier covers up to 64 times further with
+//     cells of its own.
 //   - The recorded numbers themselves: each cell's recorded enclosure and
 //     each tail's recorded bound must support the claim and must not be
 //     contradicted by the recomputation.

@@ -105,6 +105,18 @@ type expRegime[T interval.Real[T]] struct {
 // depend only on k and the arithmetic) between models in one process.
 var termCache sync.Map
 
+func init() {
+	registerFamily("exp", family{
+		start: expStart,
+		newF: func(like interval.F, p map[string]certificates.Decimal) (termSymbol[interval.F], error) {
+			return newExpTerm(like, p)
+		},
+		newB: func(like interval.B, p map[string]certificates.Decimal) (termSymbol[interval.B], error) {
+			return newExpTerm(like, p)
+		},
+	})
+}
+
 // expStart is where the support of e^{-k u} starts: u = 0, since the
 // profile is positive for every u > 0 (whatever k).
 func expStart(map[string]certificates.Decimal) (*big.Rat, error) { return new(big.Rat), nil }
@@ -644,8 +656,54 @@ func (e *expTerm[T]) tailConst() T {
 // tailD bounds 0 < M_{++}(s) <= 2 e^{-(pi -+ 2 theta) S}/|k + 2i| for
 // s >= S (upper sign, side +1) or s <= -S (side -1), S > 0, from
 // cosh(pi s) >= e^{pi |s|}/2 and 0 < theta < pi/2.
-func (e *expTerm[T]) tailD(S T, side int) T {
+func (e *expTerm[T]) tailDBound(S T, side int) T {
 	pi := S.Pi()
 	rate := pi.Sub(e.theta.Scale(1).Mul(S.Int(int64(side))))
 	return interval.Upper(interval.Exp(rate.Mul(S).Neg()).Scale(1).Quo(e.mod))
+}
+
+// piece implements termSymbol: D = M_{++} in closed form, B from the
+// quadrature of I(s) on the regime's ray.
+func (e *expTerm[T]) piece(idx int, c, S, delta T) (pt, cell, der entries[T], err error) {
+	reg, err := e.regime(idx)
+	if err != nil {
+		return pt, cell, der, err
+	}
+	ev := e.evalI(reg, c, S, delta)
+	mS := e.mpp(S)
+	pt = entries[T]{D: e.mpp(c), B: e.bFromI(ev.Ic)}
+	cell = entries[T]{D: mS, B: e.bFromI(ev.IS)}
+	der = entries[T]{D: e.mppDeriv(S, mS), B: e.bFromI(ev.dIS)}
+	return pt, cell, der, nil
+}
+
+// tailB implements termSymbol: |B| <= C(k)/|1/2 + is| <= C(k)/sqrt(1/4 + S^2).
+func (e *expTerm[T]) tailB(S T, side int) T {
+	aMin := interval.Lower(S.Frac(1, 4).Add(S.Sqr()).Sqrt())
+	return interval.Upper(e.tailConst().Quo(aMin))
+}
+
+// tailD implements termSymbol: 0 < D <= tailDBound.
+func (e *expTerm[T]) tailD(S T, side int) T {
+	return S.Int(0).Hull(e.tailDBound(S, side))
+}
+
+// limitD implements termSymbol: M_{++} -> 0 on both sides.
+func (e *expTerm[T]) limitD(int) *big.Rat { return new(big.Rat) }
+
+// budget implements termSymbol: the regimes' errQ and errT scaled by
+// 1/(pi |k+2i|) (the factor from I to B).
+func (e *expTerm[T]) budget() (T, T) {
+	like := e.k
+	scale := like.Int(1).Quo(e.mod.Mul(like.Pi()))
+	q, t := like.Int(0), like.Int(0)
+	e.mu.Lock()
+	defer e.mu.Unlock()
+	for _, slot := range e.regimes {
+		if slot.r != nil {
+			q = q.Max(interval.Upper(slot.r.errQ.Mul(scale)))
+			t = t.Max(interval.Upper(slot.r.errT.Mul(scale)))
+		}
+	}
+	return q, t
 }

@@ -200,8 +200,8 @@ func TestExpTailLemmaSamples(t *testing.T) {
 				side = -1
 			}
 			S := c.Abs()
-			if d := e.mpp(c); e.tailD(S, side).Less(d) || d.Sign() <= 0 {
-				t.Errorf("k=%s s=%s: M++ = %v, tail bound %v", k, s, d, e.tailD(S, side))
+			if d := e.mpp(c); e.tailDBound(S, side).Less(d) || d.Sign() <= 0 {
+				t.Errorf("k=%s s=%s: M++ = %v, tail bound %v", k, s, d, e.tailDBound(S, side))
 			}
 		}
 	}

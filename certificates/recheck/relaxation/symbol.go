@@ -4,7 +4,6 @@ import (
 	"errors"
 	"fmt"
 	"math/big"
-	"sort"
 	"strings"
 
 	"wedgebound/certificates"
@@ -34,34 +33,10 @@ const (
 type Model[T interval.Real[T]] struct {
 	Edge    Edge
 	like    T
-	terms   []*expTerm[T]
+	terms   []termSymbol[T]
 	starts  []*big.Rat
 	weights []T
 	wRat    []*big.Rat
-}
-
-// family is what the verifier knows of a relaxation family beyond its
-// symbol: where its profile's support starts, exactly, from the parameters
-// (for the admissibility test against the threshold d^2/(4ab)).
-type family struct {
-	start func(params map[string]certificates.Decimal) (*big.Rat, error)
-}
-
-// families is the verifier's own registry of relaxation families; a family
-// the certifier knows is accepted here only once the verifier has its own
-// code for it.
-var families = map[string]family{
-	"exp": {start: expStart},
-}
-
-// TermKinds lists the profile families the verifier knows.
-func TermKinds() []string {
-	k := make([]string, 0, len(families))
-	for kind := range families {
-		k = append(k, kind)
-	}
-	sort.Strings(k)
-	return k
 }
 
 // ErrUnknownKind is wrapped by the error for a term of an unknown family.
@@ -83,7 +58,7 @@ func NewModel[T interval.Real[T]](like T, edge Edge, terms []certificates.Term) 
 		if err != nil {
 			return nil, fmt.Errorf("terms[%d]: %v", i, err)
 		}
-		e, err := newExpTerm(like, t.Params)
+		e, err := newSymbol(f, like, t.Params)
 		if err != nil {
 			return nil, fmt.Errorf("terms[%d]: %v", i, err)
 		}
@@ -235,19 +210,17 @@ func (m *Model[T]) Piece(a, b *big.Rat) (PieceResult[T], error) {
 	cell := entries[T]{A: AS, D: like.Int(0), B: quadB(JS)}
 	der := entries[T]{A: dAS, D: like.Int(0), B: quadB(dJS)}
 	for i, t := range m.terms {
-		reg, err := t.regime(idx)
+		tp, tc, td, err := t.piece(idx, c, S, delta)
 		if err != nil {
 			return PieceResult[T]{}, err
 		}
 		w := m.weights[i]
-		ev := t.evalI(reg, c, S, delta)
-		pt.D = pt.D.Add(w.Mul(t.mpp(c)))
-		pt.B = pt.B.Add(t.bFromI(ev.Ic).MulReal(w))
-		mS := t.mpp(S)
-		cell.D = cell.D.Add(w.Mul(mS))
-		der.D = der.D.Add(w.Mul(t.mppDeriv(S, mS)))
-		cell.B = cell.B.Add(t.bFromI(ev.IS).MulReal(w))
-		der.B = der.B.Add(t.bFromI(ev.dIS).MulReal(w))
+		pt.D = pt.D.Add(w.Mul(tp.D))
+		pt.B = pt.B.Add(tp.B.MulReal(w))
+		cell.D = cell.D.Add(w.Mul(tc.D))
+		cell.B = cell.B.Add(tc.B.MulReal(w))
+		der.D = der.D.Add(w.Mul(td.D))
+		der.B = der.B.Add(td.B.MulReal(w))
 	}
 	lc := pt.eig(m.Edge)
 	direct := cell.eig(m.Edge)
@@ -270,21 +243,16 @@ func Pieces(a, b *big.Rat) [][2]*big.Rat {
 }
 
 // Budget returns the largest quadrature and truncation terms added to any
-// B entry so far (errQ and errT of a regime scaled by |w|/(pi |k+2i|));
-// the tail lemmas and rounding add no separate term (interval arithmetic
-// carries the rounding).
+// entry so far (each term's own largest, scaled by |w|); the tail lemmas
+// and rounding add no separate term (interval arithmetic carries the
+// rounding).
 func (m *Model[T]) Budget() (certificates.Budget, error) {
 	q, t := m.like.Int(0), m.like.Int(0)
 	for i, e := range m.terms {
-		scale := m.weights[i].Abs().Quo(e.mod.Mul(m.like.Pi()))
-		e.mu.Lock()
-		for _, slot := range e.regimes {
-			if slot.r != nil {
-				q = q.Max(interval.Upper(slot.r.errQ.Mul(scale)))
-				t = t.Max(interval.Upper(slot.r.errT.Mul(scale)))
-			}
-		}
-		e.mu.Unlock()
+		bq, bt := e.budget()
+		w := m.weights[i].Abs()
+		q = q.Max(interval.Upper(bq.Mul(w)))
+		t = t.Max(interval.Upper(bt.Mul(w)))
 	}
 	// An unbounded term records a huge one, 10^300.
 	huge := "1" + strings.Repeat("0", 300)
@@ -303,4 +271,31 @@ func (m *Model[T]) Budget() (certificates.Budget, error) {
 	b.Tails, errs[2] = certificates.ParseDecimal("0")
 	b.Rounding, errs[3] = certificates.ParseDecimal("0")
 	return b, errors.Join(errs[:]...)
+}
+
+// Entries encloses the entries A, D and B of M(s) at the exact point s
+// (for cross-checks against other routes).
+func (m *Model[T]) Entries(s *big.Rat) (A, D T, B interval.C[T], err error) {
+	like := m.like
+	idx, ok := regimeIndex(s, s)
+	if !ok {
+		return like, like, B, fmt.Errorf("s = %s lies beyond |s| = 2^30", s.RatString())
+	}
+	c, err := checknum.Enclose(like, s)
+	if err != nil {
+		return like, like, B, err
+	}
+	zero := like.Int(0)
+	A, _ = quadA(c)
+	D = zero
+	B = quadB(quadJ(c))
+	for i, t := range m.terms {
+		pt, _, _, err := t.piece(idx, c, c, zero)
+		if err != nil {
+			return like, like, B, err
+		}
+		D = D.Add(m.weights[i].Mul(pt.D))
+		B = B.Add(pt.B.MulReal(m.weights[i]))
+	}
+	return A, D, B, nil
 }

@@ -23,9 +23,11 @@ import (
 //     and |r^a| = r^{1/2} with int_0^1 r^{1/2}/(1+r)^2 dr = pi/4 - 1/2
 //     (substitute r = u^2). So the quadrant part of B is at most
 //     |J|/(2 pi) <= 1/(8|a|).
-//  3. Each exp term adds at most |w_j| C(k_j)/|a| to |B| (expTerm.tailConst)
-//     and w_j M_{++,j}(s) with 0 < M_{++,j}(s) <= 2 e^{-(pi -+ 2 theta_j) S}/
-//     |k_j + 2i| to D (expTerm.tailD).
+//  3. Each term adds at most |w_j| times its family's bound of |B_j| to |B|
+//     and w_j D_j(s) with D_j in its family's box to D (termSymbol.tailB,
+//     tailD; for exp terms |B_j| <= C(k_j)/|a| by expTerm.tailConst and
+//     0 < D_j <= 2 e^{-(pi -+ 2 theta_j) S}/|k_j + 2i| by
+//     expTerm.tailDBound; for bands see bandTerm).
 //  4. |a| = sqrt(1/4 + s^2) >= sqrt(1/4 + S^2).
 //  5. lambda_min = (A+D)/2 - sqrt(((A-D)/2)^2 + b^2), b = |B|, is
 //     nondecreasing in A and in D (its partial derivatives are
@@ -48,21 +50,13 @@ func (m *Model[T]) Tail(from *big.Rat, side int) (T, error) {
 	one := like.Int(1)
 	aMin := interval.Lower(like.Frac(1, 4).Add(S.Sqr()).Sqrt())
 	beta := one.Quo(aMin.Scale(3))
-	dLo, dHi := like.Int(0), like.Int(0)
+	dSum := like.Int(0)
 	for i, t := range m.terms {
 		w := m.weights[i]
-		beta = beta.Add(w.Abs().Mul(t.tailConst()).Quo(aMin))
-		dm := t.tailD(S, side)
-		switch v := w.Abs().Mul(dm); w.Sign() {
-		case 1:
-			dHi = dHi.Add(v)
-		case -1:
-			dLo = dLo.Sub(v)
-		default: // a weight enclosure containing 0: both sides
-			dLo = dLo.Sub(v)
-			dHi = dHi.Add(v)
-		}
+		beta = beta.Add(w.Abs().Mul(t.tailB(S, side)))
+		dSum = dSum.Add(w.Mul(t.tailD(S, side)))
 	}
+	dLo, dHi := interval.Lower(dSum), interval.Upper(dSum)
 	beta = interval.Upper(beta)
 	th := interval.Tanh(S.Pi().Mul(S))
 	var aLo, aHi T
@@ -78,13 +72,23 @@ func (m *Model[T]) Tail(from *big.Rat, side int) (T, error) {
 	return entries[T]{A: aLo, D: interval.Lower(dLo), B: bC}.eig(Lower), nil
 }
 
-// TailLimit is the limit of the edge eigenvalue as s -> side*inf: both
-// eigenvalues tend to min/max(A, D) with A -> 0 or 1, D -> 0 and B -> 0,
-// so lambda_min -> 0 on both sides and lambda_max -> 1 (s -> +inf) or 0
-// (s -> -inf). A recorded tail bound on the wrong side of it is false.
-func (m *Model[T]) TailLimit(side int) int {
-	if m.Edge == Upper && side > 0 {
-		return 1
+// TailLimit is the limit of the edge eigenvalue as s -> side*inf: A tends
+// to 0 (s -> -inf) or 1 (s -> +inf), B to 0 and D to the sum of the
+// weighted limits of the terms (Dinf; 0 except for terms such as the band
+// [a, inf), whose D tends to 1 as s -> +inf), so lambda_min tends to
+// min(A, Dinf) and lambda_max to max(A, Dinf). A recorded tail bound on
+// the wrong side of it is false.
+func (m *Model[T]) TailLimit(side int) *big.Rat {
+	dinf := new(big.Rat)
+	for i, t := range m.terms {
+		dinf.Add(dinf, new(big.Rat).Mul(m.wRat[i], t.limitD(side)))
 	}
-	return 0
+	a := new(big.Rat)
+	if side > 0 {
+		a.SetInt64(1)
+	}
+	if (m.Edge == Upper) == (dinf.Cmp(a) > 0) {
+		return dinf
+	}
+	return a
 }

@@ -263,7 +263,7 @@ func (v *verifier) checkRecorded() {
 		order int
 	}{{rel.Below, "tail_below", -1, orderTailBelow}, {rel.Above, "tail_above", 1, orderTailAbove}} {
 		tb, from := v.nums.tails[t.side].bound, v.nums.tails[t.side].from
-		lim := big.NewRat(int64(v.mF.TailLimit(t.side)), 1)
+		lim := v.mF.TailLimit(t.side)
 		f := failure{Where: t.name, Lo: t.tail.From.String(), order: t.order, s: from}
 		if v.edge == Lower {
 			switch {
