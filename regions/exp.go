@@ -51,6 +51,7 @@ type expRegime[T interval.Real[T]] struct {
 	lo, hi T
 	t, h   []interval.C[T]
 	err    T // bound for I(s)
+	d      float64 // the pole scale the layout was graded to
 	quad   float64
 	trunc  float64
 	errD   T // bound for I'(s)
@@ -153,9 +154,44 @@ func (e *expTerm[T]) regime(idx int) (*expRegime[T], error) {
 }
 
 // buildRegime sets up the turned path, panels, nodes and error bound for
-// the regime idx.
+// the regime idx, graded to this term's own pole scale.
 func (e *expTerm[T]) buildRegime(idx int) (*expRegime[T], error) {
-	like := e.k
+	lay, err := newExpLayout(e.k, idx, e.poleScale())
+	if err != nil {
+		return nil, err
+	}
+	regs, err := regimesOn(lay, []*expTerm[T]{e})
+	if err != nil {
+		return nil, err
+	}
+	return regs[0], nil
+}
+
+// poleScale is the distance scale 2 theta/sqrt 2 of the nearest pole of
+// the integrand from the turned path; the first panels are graded down to
+// it.
+func (e *expTerm[T]) poleScale() float64 {
+	return math.Max(2*e.theta.Lo()/math.Sqrt2, 1e-12)
+}
+
+// expLayout is the integration path of one regime: the direction, the
+// panel edges and the tail beyond the last panel. Nothing in it depends
+// on k except through the grading scale d, so every exponential term
+// whose pole scale is at least d can use the same layout (and then the
+// same nodes).
+type expLayout[T interval.Real[T]] struct {
+	idx         int
+	d           float64
+	sr          T
+	rot         interval.C[T]
+	Y           T
+	edges       []float64
+	tail, tailD T
+}
+
+// newExpLayout lays out the path of regime idx with the first panels
+// graded down to the pole scale d.
+func newExpLayout[T interval.Real[T]](like T, idx int, d float64) (*expLayout[T], error) {
 	slo, shi := regimeRange(idx)
 	sr := like.Float(slo).Hull(like.Float(shi))
 	dir := 0 // path t = y e^{i dir pi/4}
@@ -183,9 +219,10 @@ func (e *expTerm[T]) buildRegime(idx int) (*expRegime[T], error) {
 	}
 	Yf := 48 / c
 	Y := like.Float(Yf)
-	// Tail beyond Y: |e^{-at}| <= e^{-c y}, |1 - q e^{-t}| >= 1 - e^{-y cos phi}.
+	// Tail beyond Y: |e^{-at}| <= e^{-c y}, |1 - q e^{-t}| >= 1 - e^{-y cos phi}
+	// (|q| = 1 for every k).
 	cT := like.Float(c)
-	cCheck := e.decayLower(sr, dir)
+	cCheck := decayLower(sr, dir)
 	if cCheck.Less(cT) {
 		return nil, fmt.Errorf("exp term: decay rate check failed in regime %d", idx)
 	}
@@ -196,8 +233,6 @@ func (e *expTerm[T]) buildRegime(idx int) (*expRegime[T], error) {
 	tailD := interval.Exp(cT.Mul(Y).Neg()).Mul(Y.Quo(cT).Add(one.Quo(cT.Sqr()))).Quo(tailDen)
 	// Panels: geometric from the pole scale up to length L, uniform of length
 	// L to 8/c, then doubling to Y (the integrand is below e^{-8} there).
-	thetaF := e.theta.Lo()
-	d := math.Max(2*thetaF/math.Sqrt2, 1e-12)
 	L := 6 / math.Max(c, omega)
 	if dir == 0 {
 		L = math.Min(8, 6/omega)
@@ -212,47 +247,74 @@ func (e *expTerm[T]) buildRegime(idx int) (*expRegime[T], error) {
 		next := math.Min(last+step, Yf)
 		edges = append(edges, next)
 	}
+	return &expLayout[T]{idx: idx, d: d, sr: sr, rot: rot, Y: Y, edges: edges, tail: tail, tailD: tailD}, nil
+}
+
+// regimesOn builds the quadrature of every term on the shared layout: the
+// same nodes t_j for all, each term with its own weights h_j and its own
+// remainder bounds (the panel bounds share the s-free factors of the
+// integrand across terms, see panelBounds).
+func regimesOn[T interval.Real[T]](lay *expLayout[T], terms []*expTerm[T]) ([]*expRegime[T], error) {
+	like := lay.sr
 	rule, err := gaussLegendre(like, expNodes)
 	if err != nil {
 		return nil, err
 	}
-	reg := &expRegime[T]{lo: sr, hi: sr}
-	total, totalD := tail, tailD
+	n := len(terms)
+	regs := make([]*expRegime[T], n)
+	total := make([]T, n)
+	totalD := make([]T, n)
+	for i := range terms {
+		regs[i] = &expRegime[T]{lo: lay.sr, hi: lay.sr, d: lay.d}
+		total[i], totalD[i] = lay.tail, lay.tailD
+	}
+	edges := lay.edges
 	for p := 0; p+1 < len(edges); p++ {
 		y0, y1 := like.Float(edges[p]), like.Float(edges[p+1])
 		if p+1 == len(edges)-1 {
-			y1 = Y
+			y1 = lay.Y
 		}
 		mid := y0.Add(y1).Scale(-1)
 		hh := y1.Sub(y0).Scale(-1)
-		b, bd, ok := e.panelBound(sr, rot, mid, hh)
+		b, bd, ok := panelBounds(terms, lay.sr, lay.rot, mid, hh)
 		if !ok {
-			return nil, fmt.Errorf("exp term k=%s: no analytic ellipse for panel %d of regime %d", e.kStr, p, idx)
+			return nil, fmt.Errorf("exp term k=%s: no analytic ellipse for panel %d of regime %d", terms[0].kStr, p, lay.idx)
 		}
-		total = total.Add(b)
-		totalD = totalD.Add(bd)
 		for j := range rule.x {
 			y := mid.Add(hh.Mul(rule.x[j]))
-			t := rot.MulReal(y)
-			g := e.integrandNoS(t)
-			h := g.Mul(rot).MulReal(hh.Mul(rule.w[j]))
-			reg.t = append(reg.t, t)
-			reg.h = append(reg.h, h)
-			reg.ft = append(reg.ft, complex((t.Re.Lo()+t.Re.Hi())/2, (t.Im.Lo()+t.Im.Hi())/2))
-			reg.fh = append(reg.fh, complex((h.Re.Lo()+h.Re.Hi())/2, (h.Im.Lo()+h.Im.Hi())/2))
+			t := lay.rot.MulReal(y)
+			ft := complex((t.Re.Lo()+t.Re.Hi())/2, (t.Im.Lo()+t.Im.Hi())/2)
+			for i, e := range terms {
+				g := e.integrandNoS(t)
+				h := g.Mul(lay.rot).MulReal(hh.Mul(rule.w[j]))
+				r := regs[i]
+				r.t = append(r.t, t)
+				r.h = append(r.h, h)
+				r.ft = append(r.ft, ft)
+				r.fh = append(r.fh, complex((h.Re.Lo()+h.Re.Hi())/2, (h.Im.Lo()+h.Im.Hi())/2))
+			}
+		}
+		for i := range terms {
+			if !b[i].IsFinite() || !bd[i].IsFinite() {
+				return nil, fmt.Errorf("exp term k=%s: no analytic ellipse for panel %d of regime %d", terms[i].kStr, p, lay.idx)
+			}
+			total[i] = total[i].Add(b[i])
+			totalD[i] = totalD[i].Add(bd[i])
 		}
 	}
-	if !total.IsFinite() || !totalD.IsFinite() {
-		return nil, fmt.Errorf("exp term k=%s: error bound not finite in regime %d", e.kStr, idx)
+	for i, e := range terms {
+		if !total[i].IsFinite() || !totalD[i].IsFinite() {
+			return nil, fmt.Errorf("exp term k=%s: error bound not finite in regime %d", e.kStr, lay.idx)
+		}
+		regs[i].err, regs[i].errD = total[i], totalD[i]
+		regs[i].quad = total[i].Sub(lay.tail).Hi()
+		regs[i].trunc = lay.tail.Hi()
 	}
-	reg.err, reg.errD = total, totalD
-	reg.quad = total.Sub(tail).Hi()
-	reg.trunc = tail.Hi()
-	return reg, nil
+	return regs, nil
 }
 
 // decayLower encloses min over s in sr of Re(a t)/y = cos phi/2 - s sin phi.
-func (e *expTerm[T]) decayLower(sr T, dir int) T {
+func decayLower[T interval.Real[T]](sr T, dir int) T {
 	if dir == 0 {
 		return sr.Frac(1, 2)
 	}
@@ -271,40 +333,60 @@ func (e *expTerm[T]) integrandNoS(t interval.C[T]) interval.C[T] {
 	return t.Scale(-1).Neg().Exp().Quo(den)
 }
 
-// panelBound returns the Gauss remainder bounds for I and I' on the panel
-// with centre mid and half-length hh, each minimised over a few ellipse
-// parameters rho. The integrand modulus |e^{-a t}|/|1 - q e^{-t}| (times |t|
-// for I') is bounded for all s in sr on a grid of boxes covering the
-// ellipse's bounding box.
-func (e *expTerm[T]) panelBound(sr T, rot interval.C[T], mid, hh T) (T, T, bool) {
-	var best, bestD T
-	found := false
+// panelBounds returns, for each term, the Gauss remainder bounds for I
+// and I' on the panel with centre mid and half-length hh, each minimised
+// over a few ellipse parameters rho. The integrand modulus
+// |e^{-a t}|/|1 - q e^{-t}| (times |t| for I') is bounded for all s in sr
+// on a grid of boxes covering the ellipse's bounding box; the factors
+// that do not depend on k (e^{-a t} and e^{-t} on each box) are enclosed
+// once for all terms. A term for which no ellipse works gets a
+// non-finite bound; ok is false if no term has a finite one.
+func panelBounds[T interval.Real[T]](terms []*expTerm[T], sr T, rot interval.C[T], mid, hh T) ([]T, []T, bool) {
+	n := len(terms)
+	best := make([]T, n)
+	bestD := make([]T, n)
+	found := make([]bool, n)
 	for _, rf := range []float64{8, 5, 3.5, 2.5, 1.8, 1.4, 1.2} {
 		rho := mid.Float(rf)
 		inv := mid.Int(1).Quo(rho)
 		ax := hh.Mul(rho.Add(inv)).Scale(-1) // semi-major
 		bx := hh.Mul(rho.Sub(inv)).Scale(-1) // semi-minor
-		M, MD, ok := e.boxMax(sr, rot, mid.Sub(ax), mid.Add(ax), bx)
-		if !ok {
-			continue
-		}
-		b := gaussBound(M, rho, expNodes).Mul(hh)
-		bd := gaussBound(MD, rho, expNodes).Mul(hh)
-		if !found || b.Add(bd).Hi() < best.Add(bestD).Hi() {
-			best, bestD, found = b, bd, true
+		M, MD := boxMax(terms, sr, rot, mid.Sub(ax), mid.Add(ax), bx)
+		for i := range terms {
+			if !M[i].IsFinite() || !MD[i].IsFinite() {
+				continue
+			}
+			b := gaussBound(M[i], rho, expNodes).Mul(hh)
+			bd := gaussBound(MD[i], rho, expNodes).Mul(hh)
+			if !found[i] || b.Add(bd).Hi() < best[i].Add(bestD[i]).Hi() {
+				best[i], bestD[i], found[i] = b, bd, true
+			}
 		}
 	}
-	return best, bestD, found
+	any := false
+	for i := range terms {
+		if !found[i] {
+			best[i], bestD[i] = sr.Whole(), sr.Whole()
+		} else {
+			any = true
+		}
+	}
+	return best, bestD, any
 }
 
-// boxMax bounds M = |e^{-a t}/(1 - q e^{-t})| and MD = |t| M for
-// t = rot*(x + i y), x in [x0, x1], |y| <= by, s in sr, by a 8 x 4 grid of
-// boxes.
-func (e *expTerm[T]) boxMax(sr T, rot interval.C[T], x0, x1, by T) (T, T, bool) {
+// boxMax bounds, for each term, M = |e^{-a t}/(1 - q e^{-t})| and
+// MD = |t| M for t = rot*(x + i y), x in [x0, x1], |y| <= by, s in sr, by
+// a 8 x 4 grid of boxes. A term whose denominator may vanish on some box
+// gets non-finite bounds.
+func boxMax[T interval.Real[T]](terms []*expTerm[T], sr T, rot interval.C[T], x0, x1, by T) ([]T, []T) {
 	const nx, ny = 8, 4
 	x0l, x1h := interval.Lower(x0), interval.Upper(x1)
 	w := x1h.Sub(x0l)
-	M, MD := sr.Int(0), sr.Int(0)
+	M := make([]T, len(terms))
+	MD := make([]T, len(terms))
+	for i := range terms {
+		M[i], MD[i] = sr.Int(0), sr.Int(0)
+	}
 	one := interval.RealC(sr.Int(1))
 	for i := range nx {
 		xa := x0l.Add(w.Mul(sr.Frac(int64(i), nx)))
@@ -317,16 +399,26 @@ func (e *expTerm[T]) boxMax(sr T, rot interval.C[T], x0, x1, by T) (T, T, bool) 
 			// Re(a t) = Re t/2 - s Im t.
 			re := t.Re.Scale(-1).Sub(sr.Mul(t.Im))
 			num := interval.Exp(re.Neg())
-			den := one.Sub(e.q.Mul(t.Neg().Exp())).Abs()
-			if den.Sign() <= 0 || !num.IsFinite() {
-				return M, MD, false
+			et := t.Neg().Exp()
+			ta := t.Abs()
+			for k, e := range terms {
+				den := one.Sub(e.q.Mul(et)).Abs()
+				if den.Sign() <= 0 || !num.IsFinite() {
+					M[k], MD[k] = sr.Whole(), sr.Whole()
+					continue
+				}
+				// Upper ends only: num/den and |t| num/den are positive, so
+				// the upper end of each quotient and product is the bound.
+				m := num.Quo(den)
+				M[k] = M[k].Max(m)
+				MD[k] = MD[k].Max(m.Mul(ta))
 			}
-			m := interval.Upper(num.Quo(interval.Lower(den)))
-			M = M.Max(m)
-			MD = MD.Max(interval.Upper(m.Mul(t.Abs())))
 		}
 	}
-	return M, MD, M.IsFinite() && MD.IsFinite()
+	for k := range terms {
+		M[k], MD[k] = interval.Upper(M[k]), interval.Upper(MD[k])
+	}
+	return M, MD
 }
 
 // integralI encloses I(s) (deriv false) or I'(s) (deriv true) for every s

@@ -137,14 +137,48 @@ func QuadrantSlope[T interval.Real[T]](s T) Symbol[T] {
 	return Symbol[T]{A: ap, D: s.Int(0), B: b}
 }
 
-// Relaxation is the symbol of g = chi_Q + sum_j w_j h_j.
+// Relaxation is the symbol of g = chi_Q + sum_j w_j h_j. A Relaxation
+// built by NewRelaxation evaluates its exponential terms together on
+// shared path nodes (expshare.go); one given as a literal evaluates each
+// term on its own. Both enclose the same symbol.
 type Relaxation[T interval.Real[T]] struct {
 	Terms   []Term[T]
 	Weights []T
+
+	sum    *expSum[T] // the exponential terms, if shared
+	others []int      // the terms not in sum
+}
+
+// NewRelaxation returns the relaxation with these terms and weights, its
+// exponential terms sharing their quadrature nodes (see NewGroup; the
+// terms take the shared layouts from now on).
+func NewRelaxation[T interval.Real[T]](terms []Term[T], weights []T) Relaxation[T] {
+	r := Relaxation[T]{Terms: terms, Weights: weights}
+	g := NewGroup(terms)
+	if g.exp == nil || len(weights) != len(terms) {
+		return r
+	}
+	sum := &expSum[T]{g: g.exp, regimes: map[int]*sumRegime[T]{}}
+	in := map[int]bool{}
+	for _, at := range g.expAt {
+		sum.w = append(sum.w, weights[at])
+		in[at] = true
+	}
+	for i := range terms {
+		if !in[i] {
+			r.others = append(r.others, i)
+		}
+	}
+	r.sum = sum
+	return r
 }
 
 // Enclose encloses M(s) for every s in the interval s.
 func (r Relaxation[T]) Enclose(s T) Symbol[T] {
+	if r.sum != nil {
+		m, _ := r.encloseShared(s, false)
+		return m
+	}
 	m := Quadrant(s)
 	for i, t := range r.Terms {
 		m = m.Add(t.Enclose(s).Scaled(r.Weights[i]))
@@ -152,8 +186,30 @@ func (r Relaxation[T]) Enclose(s T) Symbol[T] {
 	return m
 }
 
+// encloseShared is Enclose and, if slope, Slope of a shared relaxation,
+// from one set of exponentials.
+func (r Relaxation[T]) encloseShared(s T, slope bool) (Symbol[T], Symbol[T]) {
+	v, d := r.sum.enclose(s, slope)
+	m := Quadrant(s).Add(v)
+	for _, i := range r.others {
+		m = m.Add(r.Terms[i].Enclose(s).Scaled(r.Weights[i]))
+	}
+	if !slope {
+		return m, Symbol[T]{}
+	}
+	dm := QuadrantSlope(s).Add(d)
+	for _, i := range r.others {
+		dm = dm.Add(r.Terms[i].Slope(s).Scaled(r.Weights[i]))
+	}
+	return m, dm
+}
+
 // Slope encloses dM/ds for every s in s.
 func (r Relaxation[T]) Slope(s T) Symbol[T] {
+	if r.sum != nil {
+		_, dm := r.encloseShared(s, true)
+		return dm
+	}
 	m := QuadrantSlope(s)
 	for i, t := range r.Terms {
 		m = m.Add(t.Slope(s).Scaled(r.Weights[i]))
@@ -166,11 +222,16 @@ func (r Relaxation[T]) Slope(s T) Symbol[T] {
 // lambda(c) + lambda'(s)(s - c), c the midpoint, falling back to the direct
 // enclosure when that is narrower or the slope is unbounded.
 func (r Relaxation[T]) Eig(s T, e Edge) T {
-	m := r.Enclose(s)
+	var m, dm Symbol[T]
+	if r.sum != nil {
+		m, dm = r.encloseShared(s, true)
+	} else {
+		m, dm = r.Enclose(s), r.Slope(s)
+	}
 	direct := m.Eig(e)
 	c := s.Mid()
 	v := r.Enclose(c).Eig(e)
-	d := EigSlope(m, r.Slope(s), e)
+	d := EigSlope(m, dm, e)
 	mv := v.Add(d.Mul(s.Sub(c)))
 	if !mv.IsFinite() || mv.Rad() >= direct.Rad() {
 		return direct

@@ -171,12 +171,17 @@ func run[T interval.Real[T]](cfg Config, prec T) (*Outcome, error) {
 			return nil, fmt.Errorf("weight %d: %v", i, err)
 		}
 	}
-	rel := regions.Relaxation[interval.F]{Terms: terms, Weights: w}
+	rel := regions.NewRelaxation(terms, w)
 	// The same relaxation at the cover's precision.
 	relT := regions.Relaxation[T]{}
+	// At 53 bits the cover uses the search's own terms, whose quadrature
+	// set-up (shared layouts) is then built once for both.
+	same, isF := any(terms).([]regions.Term[T])
 	for i, t := range terms {
-		tt, err := regions.NewTerm(prec, t.Kind(), t.Params())
-		if err != nil {
+		var tt regions.Term[T]
+		if isF {
+			tt = same[i]
+		} else if tt, err = regions.NewTerm(prec, t.Kind(), t.Params()); err != nil {
 			return nil, err
 		}
 		wt, err := prec.Decimal(weights[i])
@@ -186,6 +191,7 @@ func run[T interval.Real[T]](cfg Config, prec T) (*Outcome, error) {
 		relT.Terms = append(relT.Terms, tt)
 		relT.Weights = append(relT.Weights, wt)
 	}
+	relT = regions.NewRelaxation(relT.Terms, relT.Weights)
 	if math.IsNaN(candidate) {
 		// Weights given (or no terms): estimate the candidate from a scan.
 		candidate = scanCandidate(rel, edge, cfg.Workers)
@@ -272,8 +278,9 @@ func run[T interval.Real[T]](cfg Config, prec T) (*Outcome, error) {
 	return out, nil
 }
 
-// warmUp builds every term's quadrature set-up for [-lo, hi] in parallel
-// (each term builds one s-range at a time, which would otherwise serialise
+// warmUp builds the relaxation's quadrature set-up for [-lo, hi] in
+// parallel, one regime of s per job (the exponential terms share one
+// layout per regime, built on first use, which would otherwise serialise
 // the first cells of the cover). It only affects speed.
 func warmUp[T interval.Real[T]](rel regions.Relaxation[T], lo, hi float64, workers int) {
 	if workers <= 0 {
@@ -288,21 +295,11 @@ func warmUp[T interval.Real[T]](rel regions.Relaxation[T], lo, hi float64, worke
 			pts = append(pts, -m)
 		}
 	}
-	type job struct {
-		t regions.Term[T]
-		s float64
-	}
-	var jobs []job
-	for _, t := range rel.Terms {
-		for _, p := range pts {
-			jobs = append(jobs, job{t, p})
-		}
-	}
 	if len(rel.Weights) == 0 {
 		return
 	}
 	like := rel.Weights[0]
-	certify.For(len(jobs), workers, func(i int) { jobs[i].t.Enclose(like.Float(jobs[i].s)) })
+	certify.For(len(pts), workers, func(i int) { rel.Enclose(like.Float(pts[i])) })
 }
 
 // edgeValue turns an eigenvalue enclosure into the bound it proves: for edge

@@ -178,7 +178,7 @@ func Search(terms []regions.Term[interval.F], edge regions.Edge, opt SearchOptio
 	if err != nil {
 		return SearchResult{}, err
 	}
-	sm := &symbolModel{terms: terms, sigma: 1}
+	sm := &symbolModel{terms: terms, group: regions.NewGroup(terms), sigma: 1}
 	switch edge {
 	case regions.Lower:
 	case regions.Upper:
@@ -284,6 +284,7 @@ func (e *symbolEntries) finite() bool {
 // symbolModel evaluates phi(s; c) in float64.
 type symbolModel struct {
 	terms []regions.Term[interval.F]
+	group *regions.Group[interval.F] // the terms, exponentials on shared nodes
 	sigma float64 // +1 for the lower edge, -1 for the upper edge
 }
 
@@ -299,9 +300,7 @@ func (m *symbolModel) edge() regions.Edge {
 func (m *symbolModel) entries(s float64) symbolEntries {
 	e := symbolEntries{s: s, a: quadrantAFloat(s), b0: quadrantB0Float(s),
 		d: make([]float64, len(m.terms)), b: make([]complex128, len(m.terms))}
-	for j, t := range m.terms {
-		e.d[j], e.b[j] = t.Approx(s)
-	}
+	m.group.Approx(s, e.d, e.b)
 	return e
 }
 
