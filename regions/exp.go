@@ -50,7 +50,7 @@ type expTerm[T interval.Real[T]] struct {
 type expRegime[T interval.Real[T]] struct {
 	lo, hi T
 	t, h   []interval.C[T]
-	err    T // bound for I(s)
+	err    T       // bound for I(s)
 	d      float64 // the pole scale the layout was graded to
 	quad   float64
 	trunc  float64

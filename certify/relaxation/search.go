@@ -285,7 +285,7 @@ func (e *symbolEntries) finite() bool {
 type symbolModel struct {
 	terms []regions.Term[interval.F]
 	group *regions.Group[interval.F] // the terms, exponentials on shared nodes
-	sigma float64 // +1 for the lower edge, -1 for the upper edge
+	sigma float64                    // +1 for the lower edge, -1 for the upper edge
 }
 
 // edge returns the spectral edge of the model.
