@@ -31,10 +31,13 @@ type Config struct {
 	// is (Weight "": the weights are searched). Empty means the bare
 	// quadrant. Each term must be admissible (regions.Admissible).
 	Terms []certificates.Term
-	// WeightBound bounds the searched weights (default 50, or max k / 15).
+	// WeightBound bounds the searched weights (default the larger of 50
+	// and max k / 10: the best weights of a large-k profile grow like k).
 	WeightBound float64
 	// Margin is how far above the float candidate the cover aims (default
 	// 2e-4); cells are refined until they prove the candidate plus Margin.
+	// The claim is rounded up to 6 significant digits, or more when Margin
+	// is finer than that (claimDigits).
 	Margin float64
 	// Workers is the number of goroutines (0 means GOMAXPROCS); the
 	// certificate does not depend on it.
@@ -143,7 +146,7 @@ func run[T interval.Real[T]](cfg Config, prec T) (*Outcome, error) {
 					if err != nil {
 						return nil, err
 					}
-					wb = math.Max(wb, kv.Hi()/15)
+					wb = math.Max(wb, kv.Hi()/10)
 				}
 			}
 		}
@@ -256,7 +259,7 @@ func run[T interval.Real[T]](cfg Config, prec T) (*Outcome, error) {
 		}
 		proved = math.Max(proved, edgeValue(c.Value, edge))
 	}
-	claim := roundUp(proved, 6)
+	claim := roundUp(proved, claimDigits(proved, margin))
 	out := &Outcome{Bound: claim, Candidate: candidate, Worst: certify.ProvedCell[interval.F]{
 		Lo: worst.Lo, Hi: worst.Hi, Value: interval.F{}.Between(worst.Value.Endpoints())}}
 	cert, err := assemble(cfg.Problem, nf, relT, weights, edge, claim, cells, lo, hi, below, above)
@@ -313,6 +316,16 @@ func edgeValue[T interval.Real[T]](v T, e regions.Edge) float64 {
 		return v.Hi()
 	}
 	return -v.Lo()
+}
+
+// claimDigits is the number of significant digits of the claim: 6, or
+// enough that rounding up costs at most a tenth of the margin aimed at.
+func claimDigits(v, margin float64) int {
+	d := 6
+	if v > 0 && margin > 0 {
+		d = max(d, int(math.Ceil(math.Log10(v/margin)))+1)
+	}
+	return min(d, 17)
 }
 
 // roundUp returns the smallest decimal with n significant digits >= v.

@@ -9,7 +9,7 @@ import (
 
 // DefaultExpRates are the decay rates k of the default exponential
 // profiles e^{-k xp}, for geometries whose threshold is 0.
-var DefaultExpRates = []string{"0.03", "0.13", "0.79", "5.3", "40", "300", "1000", "3000"}
+var DefaultExpRates = []string{"0.1", "0.2848", "0.8111", "2.31", "6.579", "18.74", "53.37", "152", "432.9", "1233", "3511", "10000"}
 
 // DefaultTerms returns the default relaxation family for a geometry with
 // threshold (u0, ok) (regions.Normal.Threshold), weights left to the

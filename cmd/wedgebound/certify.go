@@ -34,7 +34,7 @@ func runCertify(args []string, stdout, stderr io.Writer) int {
 	weights := fs.String("weights", "", "comma-separated exact weights for the --exp profiles (default: searched)")
 	termFlags := fs.StringArray("term", nil, "one relaxation term KIND,NAME=VALUE,...[,weight=W] (repeatable; kinds: "+strings.Join(regions.TermKinds(), ", ")+"), e.g. band,from=0.25,to=0.5 or step,from=1; give a weight for every term or for none (searched)")
 	termsFile := fs.String("terms", "", "JSON file with relaxation terms [{\"kind\":..., \"params\":{...}, \"weight\":...}] (weights optional: all or none)")
-	weightBound := fs.Float64("weight-bound", 0, "bound on the searched weights (0: max(50, k_max/15))")
+	weightBound := fs.Float64("weight-bound", 0, "bound on the searched weights (0: max(50, k_max/10))")
 	var margin float64
 	addTolerance(fs, &margin, 2e-5, "how far above the float estimate the proved bound may lie (the cover aims at estimate + tolerance)", "margin")
 	prec := fs.Int("prec", 53, "working precision of the cover in bits (53: float64 intervals; 54..65536: big.Float intervals, slower)")
