@@ -109,6 +109,6 @@
 // there, up to the width of the bracket), M(100) in [0.09239, 0.09321]
 // (best threshold near v = -0.56),
 // both well below 0.126, consistent with a limit near that value; M(100)
-// is above the certified backflow upper bound 0.0407628, so the matched
+// is above the certified backflow upper bound 0.0394391, so the matched
 // advantage provably exceeds every projectile advantage.
 package matched

@@ -21,7 +21,7 @@ func TestReportBracketKinds(t *testing.T) {
 		}
 	}
 	code, out, _ := report("--format", "markdown", "../../testdata/backflow.json", files[0])
-	if code != 0 || !strings.Contains(out, "0.0407628") || !strings.Contains(out, "matched advantage") {
+	if code != 0 || !strings.Contains(out, "0.0394391") || !strings.Contains(out, "matched advantage") {
 		t.Errorf("mixed report: exit %d\n%s", code, out)
 	}
 }

@@ -227,8 +227,8 @@ func TestReportTextSummary(t *testing.T) {
 		"H' = {x + p > 0}",
 		"d^2/(4ab) = 0",
 		"P Op(chi_W) P = P Op(g) P",
-		"1169 cells from s = -1290 to s = 269",
-		"k = 3000, weight 200",
+		"1390 cells from s = -7700 to s = 1613",
+		"k = 10000, weight 1000",
 		"wedgecheck " + shippedCert,
 	} {
 		if !strings.Contains(strings.Join(strings.Fields(out), " "), want) {
@@ -380,7 +380,7 @@ func TestReportBadInput(t *testing.T) {
 		t.Fatal(err)
 	}
 	stale := filepath.Join(dir, "stale.json")
-	os.WriteFile(stale, bytes.Replace(data, []byte(`"bound": "0.0407628"`), []byte(`"bound": "0.0407627"`), 1), 0o644)
+	os.WriteFile(stale, bytes.Replace(data, []byte(`"bound": "0.0394391"`), []byte(`"bound": "0.0394390"`), 1), 0o644)
 	garbage := filepath.Join(dir, "garbage.json")
 	os.WriteFile(garbage, []byte("{not json"), 0o644)
 	// A sealed certificate whose claim its own recorded cells do not support.

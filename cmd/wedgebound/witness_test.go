@@ -86,7 +86,7 @@ func TestWitnessReport(t *testing.T) {
 		t.Errorf("latex: %s", out)
 	}
 	code, out, errs = runCmd(rep, "../../testdata/witness-small.json", "../../testdata/backflow.json")
-	if code != 0 || !strings.Contains(out, "0.037219145") || !strings.Contains(out, "0.0407628") {
+	if code != 0 || !strings.Contains(out, "0.037219145") || !strings.Contains(out, "0.0394391") {
 		t.Errorf("mixed kinds: exit %d: %s %s", code, out, errs)
 	}
 }
