@@ -159,7 +159,7 @@ func TestReportMarkdownTableParses(t *testing.T) {
 	if r[0] != "backflow geometry; lower edge" {
 		t.Errorf("problem cell %q", r[0])
 	}
-	if r[1] != "exp x8 (k = 0.03, 0.13, 0.79, 5.3, 40, 300, 1000, 3000)" {
+	if r[1] != "exp x12 (k = 0.1, 0.2848, 0.8111, 2.31, 6.579, 18.74, 53.37, 152, 432.9, 1233, 3511, 10000)" {
 		t.Errorf("family cell %q", r[1])
 	}
 	if r[2] != "-inf spec <= "+bound {
