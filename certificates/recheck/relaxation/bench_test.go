@@ -84,7 +84,7 @@ func benchShippedCells(b *testing.B, path string, step int) {
 	}
 }
 
-// BenchmarkShippedCells covers testdata/backflow.json (8 exp terms), every
+// BenchmarkShippedCells covers testdata/backflow.json (12 exp terms), every
 // 4th cell.
 func BenchmarkShippedCells(b *testing.B) {
 	benchShippedCells(b, filepath.Join("..", "..", "..", "testdata", "backflow.json"), 4)
