@@ -455,14 +455,14 @@ func newtonWindow(relF regions.Relaxation[interval.F], relB regions.Relaxation[i
 			break
 		}
 		if step >= maxSteps {
-			return window{}, fmt.Errorf("Newton's method did not settle within %d steps at %d bits", maxSteps, P)
+			return window{}, fmt.Errorf("the Newton iteration did not settle within %d steps at %d bits", maxSteps, P)
 		}
 		cf := sB.Mid().Lo()
 		j := gj(jetF.Eig(interval.PointF(cf), e, 2))
 		d2 := like.Float(j.L2.Mid().Lo())
 		sB = sB.Sub(d.Quo(d2)).Mid()
 		if sB.Lo() <= lo || sB.Hi() >= hi {
-			return window{}, fmt.Errorf("Newton's method left the window [%g, %g]", lo, hi)
+			return window{}, fmt.Errorf("the Newton iteration left the window [%g, %g]", lo, hi)
 		}
 	}
 	progress("Newton", 3, 4)

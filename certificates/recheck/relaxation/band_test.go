@@ -20,8 +20,10 @@ func TestBandDiagonalAdditive(t *testing.T) {
 	for _, s := range []string{"-20", "-5", "-1.5", "0", "0.75", "3", "12"} {
 		sr := r(s)
 		idx, _ := regimeIndex(sr, sr)
-		c := like.Float(0)
-		c, _ = like.Decimal(s)
+		c, err := like.Decimal(s)
+		if err != nil {
+			t.Fatal(err)
+		}
 		zero := like.Int(0)
 		a, _, _, err1 := d1.eval(idx, c, zero)
 		b, _, _, err2 := d2.eval(idx, c, zero)

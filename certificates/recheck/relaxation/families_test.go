@@ -68,7 +68,9 @@ func TestStepCertificateAndFalseClaims(t *testing.T) {
 			c.Relaxation.Claim.Bound = certificates.MustDecimal("0.1420")
 			c.Relaxation.Claim.Statement = strings.ReplaceAll(c.Relaxation.Claim.Statement, "0.1440", "0.1420")
 		}, "", ""},
-		{"support inside H", func(c *certificates.Certificate) { c.Relaxation.Terms[0].Params["from"] = certificates.MustDecimal("0.2") }, "terms[0]", "xp >= 1/4"},
+		{"support inside H", func(c *certificates.Certificate) {
+			c.Relaxation.Terms[0].Params["from"] = certificates.MustDecimal("0.2")
+		}, "terms[0]", "xp >= 1/4"},
 		{"weight changed", func(c *certificates.Certificate) { c.Relaxation.Terms[0].Weight = certificates.MustDecimal("-0.2") }, "", ""},
 	} {
 		d := stepCertificate(t)

@@ -30,9 +30,9 @@ type pathLeg[T interval.Real[T]] struct {
 // panel's Bernstein ellipse, for all s in sR at once) plus the explicit
 // truncation bounds the caller adds for the parts of the path left out.
 type pathRule[T interval.Real[T]] struct {
-	t    []interval.C[T]
-	tabs []T // upper bounds of |t_j|
-	h    []interval.C[T]
+	t           []interval.C[T]
+	tabs        []T // upper bounds of |t_j|
+	h           []interval.C[T]
 	errQ, errQ1 T // quadrature remainders (value, derivative)
 	errT, errT1 T // truncation (value, derivative), added by the caller
 }
