@@ -262,7 +262,8 @@ func checkCertifyInput(p regions.Problem, terms []termSpec) error {
 	return nil
 }
 
-// certifyTermFlags reads --term flags KIND,NAME=VALUE,...[,weight=W].
+// certifyTermFlags reads --term flags KIND,NAME=VALUE,...[,weight=W]
+// (certify and spectrum share this grammar).
 func certifyTermFlags(flags []string) ([]termSpec, error) {
 	var out []termSpec
 	for _, f := range flags {

@@ -5,7 +5,6 @@ import (
 	"encoding/json"
 	"errors"
 	"fmt"
-	"strings"
 
 	"wedgebound/interval"
 	"wedgebound/regions"
@@ -59,31 +58,16 @@ func decodeRelaxation[T interval.Real[T]](like T, data []byte) (regions.Relaxati
 }
 
 // termSpecsJSON turns --term flags KIND,NAME=VALUE,...,weight=W into the
-// JSON term list read by decodeRelaxation.
+// JSON term list read by decodeRelaxation; every flag needs its weight.
 func termSpecsJSON(flags []string) ([]byte, error) {
-	specs := make([]termSpec, 0, len(flags))
-	for _, f := range flags {
-		parts := strings.Split(f, ",")
-		spec := termSpec{Kind: strings.TrimSpace(parts[0]), Params: map[string]string{}}
-		for _, p := range parts[1:] {
-			name, value, ok := strings.Cut(p, "=")
-			name, value = strings.TrimSpace(name), strings.TrimSpace(value)
-			if !ok || name == "" || value == "" {
-				return nil, fmt.Errorf("--term %q: %q is not NAME=VALUE", f, p)
-			}
-			if name == "weight" {
-				spec.Weight = value
-				continue
-			}
-			if _, dup := spec.Params[name]; dup {
-				return nil, fmt.Errorf("--term %q: %s given twice", f, name)
-			}
-			spec.Params[name] = value
-		}
+	specs, err := certifyTermFlags(flags)
+	if err != nil {
+		return nil, err
+	}
+	for i, spec := range specs {
 		if spec.Weight == "" {
-			return nil, fmt.Errorf("--term %q: no weight=W", f)
+			return nil, fmt.Errorf("--term %q: no weight=W", flags[i])
 		}
-		specs = append(specs, spec)
 	}
 	return json.Marshal(specs)
 }
