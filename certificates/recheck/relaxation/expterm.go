@@ -409,46 +409,9 @@ func (e *expTerm[T]) buildRegime(idx int) (*expRegime[T], error) {
 // nested, so once one may hold a pole every larger one may too) until the
 // required size stops improving.
 func (e *expTerm[T]) panelRule(like T, rot interval.C[T], sR T, a, b float64, target T) (int, T, T, bool) {
-	y0, y1 := like.Float(a), like.Float(b)
-	m := y0.Add(y1).Scale(-1)
-	l := y1.Sub(y0).Scale(-1)
-	maxN := 64
-	if like.Prec() > 53 {
-		maxN = ccSizes[len(ccSizes)-1]
-	}
-	bestN, found := 0, false
-	var best0, best1 T
-	for _, rf := range ccRhos {
-		m0, m1, ok := e.ellipseMax(like, rot, sR, m, l, rf)
-		if !ok {
-			break
-		}
-		rho := like.Float(rf)
-		n := 0
-		for _, cand := range ccSizes {
-			if cand > maxN || found && cand >= bestN {
-				break
-			}
-			rule, err := checknum.ClenshawCurtis(like, cand)
-			if err != nil {
-				return 0, target, target, false
-			}
-			b0 := rule.Bound(m0, rho).Mul(l)
-			if b0.IsFinite() && b0.Hi() <= target.Lo() {
-				n = cand
-				best0, best1 = interval.Upper(b0), interval.Upper(rule.Bound(m1, rho).Mul(l))
-				break
-			}
-		}
-		if n == 0 {
-			if found {
-				break
-			}
-			continue
-		}
-		bestN, found = n, true
-	}
-	return bestN, best0, best1, found
+	return smallestRule(like, ccRhos, a, b, target, func(m, l T, rf float64) (T, T, bool) {
+		return e.ellipseMax(like, rot, sR, m, l, rf)
+	})
 }
 
 // sinSqLower returns a lower bound of sin^2 over the interval u: 0 when u

@@ -111,49 +111,9 @@ var legRhos = []float64{1.4, 2, 3, 5, 8, 14}
 // ellipse parameters in increasing order; it returns the bounds for V and
 // V' (scaled by the half-length).
 func legPanelRule[T interval.Real[T]](like T, leg pathLeg[T], sR T, a, b float64, target T) (int, T, T, bool) {
-	y0, y1 := like.Float(a), like.Float(b)
-	m := y0.Add(y1).Scale(-1)
-	l := y1.Sub(y0).Scale(-1)
-	maxN := 64
-	if like.Prec() > 53 {
-		maxN = ccSizes[len(ccSizes)-1]
-	}
-	bestN, found := 0, false
-	var best0, best1 T
-	for _, rf := range legRhos {
-		if found && bestN <= ccSizes[0] {
-			break
-		}
-		m0, m1, ok := legEllipseMax(like, leg, sR, m, l, rf)
-		if !ok {
-			break
-		}
-		rho := like.Float(rf)
-		n := 0
-		for _, cand := range ccSizes {
-			if cand > maxN || found && cand >= bestN {
-				break
-			}
-			rule, err := checknum.ClenshawCurtis(like, cand)
-			if err != nil {
-				return 0, target, target, false
-			}
-			b0 := rule.Bound(m0, rho).Mul(l)
-			if b0.IsFinite() && b0.Hi() <= target.Lo() {
-				n = cand
-				best0, best1 = interval.Upper(b0), interval.Upper(rule.Bound(m1, rho).Mul(l))
-				break
-			}
-		}
-		if n == 0 {
-			if found {
-				break
-			}
-			continue
-		}
-		bestN, found = n, true
-	}
-	return bestN, best0, best1, found
+	return smallestRule(like, legRhos, a, b, target, func(m, l T, rf float64) (T, T, bool) {
+		return legEllipseMax(like, leg, sR, m, l, rf)
+	})
 }
 
 // legEllipseMax bounds |f e^{-i s t}| and |t f e^{-i s t}| for every s in
@@ -250,4 +210,57 @@ func (pr *pathRule[T]) eval(c, delta T) pathEval[T] {
 		VS:  pad(p0, interval.Upper(errI.Add(r0))),
 		dVS: pad(p1, interval.Upper(errD.Add(r1))),
 	}
+}
+
+// smallestRule picks the smallest Clenshaw-Curtis size whose remainder
+// bound on the panel [a, b] meets target, trying the ellipse parameters
+// rhos in increasing order (the ellipses are nested, so once one may hold
+// a singularity every larger one may too) until the size stops improving.
+// ellipseMax bounds the integrand and its s-derivative companion on the
+// Bernstein ellipse of parameter rf of the panel with centre m and
+// half-length l; the returned bounds are scaled by l.
+func smallestRule[T interval.Real[T]](like T, rhos []float64, a, b float64, target T, ellipseMax func(m, l T, rf float64) (T, T, bool)) (int, T, T, bool) {
+	y0, y1 := like.Float(a), like.Float(b)
+	m := y0.Add(y1).Scale(-1)
+	l := y1.Sub(y0).Scale(-1)
+	maxN := 64
+	if like.Prec() > 53 {
+		maxN = ccSizes[len(ccSizes)-1]
+	}
+	bestN, found := 0, false
+	var best0, best1 T
+	for _, rf := range rhos {
+		if found && bestN <= ccSizes[0] {
+			break
+		}
+		m0, m1, ok := ellipseMax(m, l, rf)
+		if !ok {
+			break
+		}
+		rho := like.Float(rf)
+		n := 0
+		for _, cand := range ccSizes {
+			if cand > maxN || found && cand >= bestN {
+				break
+			}
+			rule, err := checknum.ClenshawCurtis(like, cand)
+			if err != nil {
+				return 0, target, target, false
+			}
+			b0 := rule.Bound(m0, rho).Mul(l)
+			if b0.IsFinite() && b0.Hi() <= target.Lo() {
+				n = cand
+				best0, best1 = interval.Upper(b0), interval.Upper(rule.Bound(m1, rho).Mul(l))
+				break
+			}
+		}
+		if n == 0 {
+			if found {
+				break
+			}
+			continue
+		}
+		bestN, found = n, true
+	}
+	return bestN, best0, best1, found
 }
