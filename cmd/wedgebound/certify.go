@@ -224,7 +224,8 @@ func splitList(s string) []string {
 // checkCertifyInput rejects, before any work, what relaxation.Run would only
 // find later: a problem without a normal form, unknown families or bad
 // parameters, profiles the geometry does not admit, weights that are not
-// finite decimals, and weights given for some terms but not all. Such
+// finite decimals, weights given for some terms but not all, and hat
+// profiles (the verifier has no route for them yet). Such
 // input is the user's (exit 2).
 func checkCertifyInput(p regions.Problem, terms []termSpec) error {
 	nf, err := regions.Normalize(p)
@@ -237,6 +238,9 @@ func checkCertifyInput(p regions.Problem, terms []termSpec) error {
 		rt, err := regions.NewTerm(interval.PointF(0), t.Kind, t.Params)
 		if err != nil {
 			return fmt.Errorf("term %d (%s): %v", i+1, t.Kind, err)
+		}
+		if t.Kind == "hat" {
+			return fmt.Errorf("term %d: hat profiles are not yet known to wedgecheck, so a certificate holding them could not be re-checked; use bands and steps (wedgebound spectrum takes hats)", i+1)
 		}
 		if err := regions.Admissible(rt.Kind(), rt.Start(), u0, ok); err != nil {
 			if t.Kind == "exp" {
