@@ -446,68 +446,19 @@ func sinSqLower[T interval.Real[T]](u T) T {
 // |1 - e^{-w}|^2 = (1 - e^{-Re w})^2 + 4 e^{-Re w} sin^2(Im w/2) is bounded
 // below; both formulas hold for every complex t.
 func (e *expTerm[T]) ellipseMax(like T, rot interval.C[T], sR, m, l T, rho float64) (T, T, bool) {
-	A := (rho + 1/rho) / 2 * (1 + 1e-12)
-	B := (rho - 1/rho) / 2 * (1 + 1e-12)
-	const nx, ny = 8, 4
-	m0, m1 := like.Int(0), like.Int(0)
 	one := like.Int(1)
 	twoTheta := e.theta.Scale(1)
-	var box func(xa, xb, ya, yb float64, depth int) bool
-	box = func(xa, xb, ya, yb float64, depth int) bool {
-		// Skip boxes that miss the ellipse (tested with slack).
-		dx := 0.0
-		if xa > 0 {
-			dx = xa
-		} else if xb < 0 {
-			dx = -xb
-		}
-		dy := 0.0
-		if ya > 0 {
-			dy = ya
-		} else if yb < 0 {
-			dy = -yb
-		}
-		if (dx/A)*(dx/A)+(dy/B)*(dy/B) > 1+1e-9 {
-			return true
-		}
-		zr := m.Add(l.Mul(like.Float(xa).Hull(like.Float(xb))))
-		zi := l.Mul(like.Float(ya).Hull(like.Float(yb)))
-		t := rot.Mul(interval.C[T]{Re: zr, Im: zi})
+	return ellipseMax(like, m, l, rho, func(z interval.C[T]) (T, T, bool) {
+		t := rot.Mul(z)
 		ex := interval.Exp(sR.Mul(t.Im).Sub(t.Re.Scale(-1)))
 		er := interval.Exp(t.Re.Neg())
 		sn := sinSqLower(t.Im.Sub(twoTheta).Scale(-1))
 		d2 := interval.Lower(one.Sub(er).Sqr().Add(interval.Lower(er).Mul(sn).Scale(2)))
 		if d2.Sign() <= 0 || !ex.IsFinite() {
-			if depth >= 3 {
-				return false
-			}
-			xm, ym := xa+(xb-xa)/2, ya+(yb-ya)/2
-			return box(xa, xm, ya, ym, depth+1) && box(xm, xb, ya, ym, depth+1) &&
-				box(xa, xm, ym, yb, depth+1) && box(xm, xb, ym, yb, depth+1)
+			return d2, d2, false
 		}
-		f := interval.Upper(ex.Quo(d2.Sqrt()))
-		m0 = m0.Max(f)
-		m1 = m1.Max(interval.Upper(f.Mul(t.Abs())))
-		return true
-	}
-	for i := range nx {
-		xa := -A + 2*A*float64(i)/nx
-		xb := -A + 2*A*float64(i+1)/nx
-		if i == nx-1 {
-			xb = A
-		}
-		for j := range ny {
-			ya := -B + 2*B*float64(j)/ny
-			yb := -B + 2*B*float64(j+1)/ny
-			if j == ny-1 {
-				yb = B
-			}
-			if !box(xa, xb, ya, yb, 0) {
-				return m0, m1, false
-			}
-		}
-	}
-	return m0, m1, m0.IsFinite() && m1.IsFinite()
+		return interval.Upper(ex.Quo(d2.Sqrt())), t.Abs(), true
+	})
 }
 
 // iEval holds enclosures of I at a point c and of I and I' over a cell

@@ -122,51 +122,11 @@ func legPanelRule[T interval.Real[T]](like T, leg pathLeg[T], sR T, a, b float64
 // bound, for instance when it comes close to a singularity); ok is false
 // when some box stays unbounded. |e^{-i s t}| = e^{s Im t} for real s.
 func legEllipseMax[T interval.Real[T]](like T, leg pathLeg[T], sR, m, l T, rho float64) (T, T, bool) {
-	A := (rho + 1/rho) / 2 * (1 + 1e-12)
-	B := (rho - 1/rho) / 2 * (1 + 1e-12)
-	const nx, ny = 8, 4
-	m0, m1 := like.Int(0), like.Int(0)
-	var box func(xa, xb, ya, yb float64, depth int) bool
-	box = func(xa, xb, ya, yb float64, depth int) bool {
-		dx := math.Max(0, math.Max(xa, -xb))
-		dy := math.Max(0, math.Max(ya, -yb))
-		if (dx/A)*(dx/A)+(dy/B)*(dy/B) > 1+1e-9 {
-			return true
-		}
-		zr := m.Add(l.Mul(like.Float(xa).Hull(like.Float(xb))))
-		zi := l.Mul(like.Float(ya).Hull(like.Float(yb)))
-		f, t := leg.at(interval.C[T]{Re: zr, Im: zi})
+	return ellipseMax(like, m, l, rho, func(z interval.C[T]) (T, T, bool) {
+		f, t := leg.at(z)
 		mag := interval.Upper(f.Abs().Mul(interval.Exp(sR.Mul(t.Im))))
-		if !mag.IsFinite() {
-			if depth >= 3 {
-				return false
-			}
-			xm, ym := xa+(xb-xa)/2, ya+(yb-ya)/2
-			return box(xa, xm, ya, ym, depth+1) && box(xm, xb, ya, ym, depth+1) &&
-				box(xa, xm, ym, yb, depth+1) && box(xm, xb, ym, yb, depth+1)
-		}
-		m0 = m0.Max(mag)
-		m1 = m1.Max(interval.Upper(mag.Mul(t.Abs())))
-		return true
-	}
-	for i := range nx {
-		xa := -A + 2*A*float64(i)/nx
-		xb := -A + 2*A*float64(i+1)/nx
-		if i == nx-1 {
-			xb = A
-		}
-		for j := range ny {
-			ya := -B + 2*B*float64(j)/ny
-			yb := -B + 2*B*float64(j+1)/ny
-			if j == ny-1 {
-				yb = B
-			}
-			if !box(xa, xb, ya, yb, 0) {
-				return m0, m1, false
-			}
-		}
-	}
-	return m0, m1, m0.IsFinite() && m1.IsFinite()
+		return mag, t.Abs(), mag.IsFinite()
+	})
 }
 
 // pathEval holds V at a point c and V, V' over a cell around it.
@@ -263,4 +223,58 @@ func smallestRule[T interval.Real[T]](like T, rhos []float64, a, b float64, targ
 		bestN, found = n, true
 	}
 	return bestN, best0, best1, found
+}
+
+// ellipseMax bounds |g| and |t g| over the points x = m + l z, z in the
+// closed Bernstein ellipse E_rho, by covering the ellipse with an 8 x 4
+// grid of boxes (boxes missing the ellipse, tested with slack, are
+// skipped) and halving a box up to three times where at gives no finite
+// bound, for instance near a singularity. at returns, for the complex box
+// x, an upper bound of |g| on it, |t| on it, and whether the bound holds;
+// ok is false when some box stays unbounded.
+func ellipseMax[T interval.Real[T]](like T, m, l T, rho float64, at func(x interval.C[T]) (T, T, bool)) (T, T, bool) {
+	A := (rho + 1/rho) / 2 * (1 + 1e-12)
+	B := (rho - 1/rho) / 2 * (1 + 1e-12)
+	const nx, ny = 8, 4
+	m0, m1 := like.Int(0), like.Int(0)
+	var box func(xa, xb, ya, yb float64, depth int) bool
+	box = func(xa, xb, ya, yb float64, depth int) bool {
+		dx := math.Max(0, math.Max(xa, -xb))
+		dy := math.Max(0, math.Max(ya, -yb))
+		if (dx/A)*(dx/A)+(dy/B)*(dy/B) > 1+1e-9 {
+			return true
+		}
+		zr := m.Add(l.Mul(like.Float(xa).Hull(like.Float(xb))))
+		zi := l.Mul(like.Float(ya).Hull(like.Float(yb)))
+		mag, tAbs, ok := at(interval.C[T]{Re: zr, Im: zi})
+		if !ok {
+			if depth >= 3 {
+				return false
+			}
+			xm, ym := xa+(xb-xa)/2, ya+(yb-ya)/2
+			return box(xa, xm, ya, ym, depth+1) && box(xm, xb, ya, ym, depth+1) &&
+				box(xa, xm, ym, yb, depth+1) && box(xm, xb, ym, yb, depth+1)
+		}
+		m0 = m0.Max(mag)
+		m1 = m1.Max(interval.Upper(mag.Mul(tAbs)))
+		return true
+	}
+	for i := range nx {
+		xa := -A + 2*A*float64(i)/nx
+		xb := -A + 2*A*float64(i+1)/nx
+		if i == nx-1 {
+			xb = A
+		}
+		for j := range ny {
+			ya := -B + 2*B*float64(j)/ny
+			yb := -B + 2*B*float64(j+1)/ny
+			if j == ny-1 {
+				yb = B
+			}
+			if !box(xa, xb, ya, yb, 0) {
+				return m0, m1, false
+			}
+		}
+	}
+	return m0, m1, m0.IsFinite() && m1.IsFinite()
 }
