@@ -106,7 +106,7 @@ func runSpectrum(args []string, stdout, stderr io.Writer) int {
 			}
 			source = *termsFile
 		}
-		rel, err := decodeRelaxation(interval.F{}, data)
+		rel, specs, err := decodeRelaxation(interval.F{}, data)
 		if err != nil {
 			fmt.Fprintf(stderr, "wedgebound spectrum: %s: %v\n", source, err)
 			return 2
@@ -116,11 +116,6 @@ func runSpectrum(args []string, stdout, stderr io.Writer) int {
 			if *digits > spectrum.MaxTermDigits {
 				fmt.Fprintf(stderr, "wedgebound spectrum: with exp terms at most %d digits are supported, not %d\n", spectrum.MaxTermDigits, *digits)
 				return 2
-			}
-			raw, _ := decodeTermSpecs(data) // decoded above without error
-			specs := make([]spectrum.TermSpec, len(raw))
-			for i, t := range raw {
-				specs[i] = spectrum.TermSpec{Kind: t.Kind, Params: t.Params, Weight: t.Weight}
 			}
 			bar := newProgress(stderr, *quiet)
 			rs, err := spectrum.TermEdges(specs, *digits, bar.update)

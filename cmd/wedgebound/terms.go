@@ -6,6 +6,7 @@ import (
 	"errors"
 	"fmt"
 
+	"wedgebound/certify/spectrum"
 	"wedgebound/interval"
 	"wedgebound/regions"
 )
@@ -32,29 +33,20 @@ func decodeTermSpecs(data []byte) ([]termSpec, error) {
 	return specs, nil
 }
 
-// decodeRelaxation reads a JSON array of terms strictly.
-func decodeRelaxation[T interval.Real[T]](like T, data []byte) (regions.Relaxation[T], error) {
-	specs, err := decodeTermSpecs(data)
+// decodeRelaxation reads a JSON array of terms strictly and builds the
+// relaxation with spectrum.BuildRelaxation; it also returns the exact
+// specs, from which the Newton route rebuilds it at higher precision.
+func decodeRelaxation[T interval.Real[T]](like T, data []byte) (regions.Relaxation[T], []spectrum.TermSpec, error) {
+	raw, err := decodeTermSpecs(data)
 	if err != nil {
-		return regions.Relaxation[T]{}, err
+		return regions.Relaxation[T]{}, nil, err
 	}
-	var rel regions.Relaxation[T]
-	for i, s := range specs {
-		t, err := regions.NewTerm(like, s.Kind, s.Params)
-		if err != nil {
-			return rel, fmt.Errorf("term %d: %v", i, err)
-		}
-		if _, err := regions.ParseRat(s.Weight); err != nil {
-			return rel, fmt.Errorf("term %d weight: %v", i, err)
-		}
-		wv, err := like.Decimal(s.Weight)
-		if err != nil {
-			return rel, fmt.Errorf("term %d weight: %v", i, err)
-		}
-		rel.Terms = append(rel.Terms, t)
-		rel.Weights = append(rel.Weights, wv)
+	specs := make([]spectrum.TermSpec, len(raw))
+	for i, s := range raw {
+		specs[i] = spectrum.TermSpec{Kind: s.Kind, Params: s.Params, Weight: s.Weight}
 	}
-	return rel, nil
+	rel, err := spectrum.BuildRelaxation(like, specs)
+	return rel, specs, err
 }
 
 // termSpecsJSON turns --term flags KIND,NAME=VALUE,...,weight=W into the
