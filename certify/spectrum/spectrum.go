@@ -144,24 +144,7 @@ func Terms(rel regions.Relaxation[interval.F], digits int, progress CoverProgres
 // with direct enclosures on the cells (the bare quadrant has its own route,
 // QuadrantEdges). progress may be nil.
 func Enclose[T interval.Real[T]](like T, rel regions.Relaxation[T], digits int, progress CoverProgress) ([2]T, error) {
-	Sv := int64(8)
-	small := func(S int64) bool {
-		for _, side := range []int{-1, 1} {
-			m := rel.Tail(like.Int(S), side)
-			if m.B.Re.Hi() > 0.002 && side < 0 {
-				return false
-			}
-			for _, e := range []regions.Edge{regions.Lower, regions.Upper} {
-				if v := m.Eig(e); !v.IsFinite() || v.Hi()-v.Lo() > 0.004 {
-					return false
-				}
-			}
-		}
-		return true
-	}
-	for Sv < 1<<14 && !small(Sv) {
-		Sv *= 2
-	}
+	Sv := tailStart(like, rel)
 	S := like.Int(Sv)
 	var out [2]T
 	eps, err := like.Decimal(fmt.Sprintf("1e-%d", digits+1))

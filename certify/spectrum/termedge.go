@@ -114,7 +114,7 @@ func TermEdges(specs []TermSpec, digits int, progress Progress) ([2]TermEdge, er
 		return out, err
 	}
 	// S: the push-out of the tail lemmas (as in Enclose).
-	S := tailStart(relF)
+	S := tailStart(interval.F{}, relF)
 	var errs [2]error
 	var wg sync.WaitGroup
 	for i, e := range []regions.Edge{regions.Lower, regions.Upper} {
@@ -136,8 +136,7 @@ func TermEdges(specs []TermSpec, digits int, progress Progress) ([2]TermEdge, er
 // tailStart doubles S from 8 (up to 2^14) until the tail lemmas give
 // |B| below 0.002 for s < 0 and both tail eigenvalue enclosures narrower
 // than 0.004.
-func tailStart(rel regions.Relaxation[interval.F]) int64 {
-	like := interval.F{}
+func tailStart[T interval.Real[T]](like T, rel regions.Relaxation[T]) int64 {
 	small := func(S int64) bool {
 		for _, side := range []int{-1, 1} {
 			m := rel.Tail(like.Int(S), side)
